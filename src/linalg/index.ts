@@ -9,3 +9,5 @@ export * from './zgemm.ts';
 export * from './zgetrf.ts';
 export * from './zsqrt.ts';
 export * from './toeplitz.ts';
+export * from './zgetrsRight.ts';
+export * from './zpotrf.ts';
