@@ -1,0 +1,4 @@
+/** The rigorous solver: `solve()` and its records. */
+export * from './types.ts';
+export * from './errors.ts';
+export { solve, SOLVER_VERSION } from './solve.ts';

@@ -1,0 +1,153 @@
+/**
+ * Stable combination of the layers: a reflection-matrix recursion from the substrate up, then
+ * the incident amplitudes carried down.
+ *
+ * Amplitudes in each medium are referenced at its own interfaces, so every propagation factor
+ * X = exp(i·q·k0·d) has |X| ≤ 1 and a layer 50 wavelengths thick or an opaque metal slab never
+ * overflows: this is the scattering-matrix approach (Redheffer star product specialised to
+ * incidence from the cover; L. Li, "Formulation and comparison of two recursive matrix
+ * algorithms for modeling layered diffraction gratings", J. Opt. Soc. Am. A 13, 1024 (1996)).
+ *
+ * At the interface below medium j (amplitudes c±) and above medium j+1 (amplitudes c'±,
+ * with c'− = R'·c'+ at the top of j+1): W_j(c+ + c−) = W_{j+1}(I + R')c'+ and
+ * V_j(c+ − c−) = V_{j+1}(I − R')c'+. With A = W_j⁻¹W_{j+1}(I + R'), B = V_j⁻¹V_{j+1}(I − R'),
+ * S = (A + B)/2 and Δ = (A − B)/2:  c'+ = S⁻¹c+ and c− = Δ·S⁻¹·c+, so the reflection matrix
+ * at the bottom of medium j is Δ·S⁻¹ and at its top X·Δ·S⁻¹·X.
+ */
+import { cmatrix, type CMatrix, type LUFactors, zgetrf, zgetrs, zgetrsRight, zgemm } from '../linalg/index.ts';
+import type { Modes } from './modes.ts';
+
+export interface StackResult {
+  /** backward amplitudes in the cover at z = 0, one column per incident vector */
+  readonly reflected: CMatrix;
+  /** forward amplitudes in the substrate at the last interface */
+  readonly transmitted: CMatrix;
+}
+
+/**
+ * @param media cover, layers top to bottom, substrate; all with the same mode count n.
+ * @param thickness normalized thicknesses k0·d of media[1 … L] (index 0 and L+1 unused).
+ * @param incident n×c forward amplitudes in the cover at z = 0.
+ */
+export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray<number>, incident: Readonly<CMatrix>): StackResult {
+  const L = media.length - 2;
+  const n = media[0]!.n;
+  const lus: LUFactors[] = new Array(L + 1);
+  let delta0: CMatrix | null = null;
+  // R' at the top of the medium below the current interface; null means zero (substrate)
+  let rTop: CMatrix | null = null;
+  const F = cmatrix(n, n);
+  const G = cmatrix(n, n);
+  const tmp = cmatrix(n, n);
+  for (let j = L; j >= 0; j--) {
+    const upper = media[j]!;
+    const lower = media[j + 1]!;
+    if (rTop === null) {
+      setIdentity(tmp);
+      lower.mulW(F, tmp);
+      lower.mulV(G, tmp);
+    } else {
+      // F = W(I + R'), G = V(I − R')
+      addIdentity(tmp, rTop, 1, 1);
+      lower.mulW(F, tmp);
+      addIdentity(tmp, rTop, 1, -1);
+      lower.mulV(G, tmp);
+    }
+    upper.solveW(F, F); // A
+    upper.solveV(G, G); // B
+    // S = (A + B)/2 into tmp, Δ = (A − B)/2 into F
+    const f = F.data;
+    const g = G.data;
+    const t = tmp.data;
+    for (let p = 0; p < f.length; p++) {
+      const a = f[p]!;
+      const b = g[p]!;
+      t[p] = 0.5 * (a + b);
+      f[p] = 0.5 * (a - b);
+    }
+    lus[j] = zgetrf(tmp);
+    if (j === 0) {
+      delta0 = F;
+      break;
+    }
+    // R at the bottom of medium j = Δ·S⁻¹; at its top X·R·X
+    const r: CMatrix = rTop ?? cmatrix(n, n);
+    zgetrsRight(lus[j]!, F, r);
+    const x = phase(upper.q, thickness[j]!);
+    scaleBoth(r, x);
+    rTop = r;
+  }
+  // carry the incident amplitudes down: c+ (top of medium j+1) = S_j⁻¹ · X_j · c+ (top of j)
+  const c = incident.cols;
+  let cur = zgetrs(lus[0]!, incident) as CMatrix;
+  const reflected = zgemm(cmatrix(n, c), delta0!, cur);
+  for (let j = 1; j <= L; j++) {
+    const x = phase(media[j]!.q, thickness[j]!);
+    scaleRowsBy(cur, x);
+    cur = zgetrs(lus[j]!, cur, cur) as CMatrix;
+  }
+  return { reflected, transmitted: cur };
+}
+
+function setIdentity(m: CMatrix): void {
+  m.data.fill(0);
+  for (let i = 0; i < m.rows; i++) m.data[2 * (i * m.cols + i)] = 1;
+}
+
+/** out = a·I + s·R */
+function addIdentity(out: CMatrix, r: Readonly<CMatrix>, a: number, s: number): void {
+  const n = r.rows;
+  const o = out.data;
+  const d = r.data;
+  for (let p = 0; p < o.length; p++) o[p] = s * d[p]!;
+  for (let i = 0; i < n; i++) o[2 * (i * n + i)] += a;
+}
+
+/** exp(i·q·d) per mode. */
+export function phase(q: Float64Array, d: number): Float64Array {
+  const x = new Float64Array(q.length);
+  for (let k = 0; k < q.length; k += 2) {
+    // exp(i(qr + i qi)d) = exp(−qi·d)·(cos(qr·d) + i sin(qr·d))
+    const mag = Math.exp(-q[k + 1]! * d);
+    const ang = q[k]! * d;
+    x[k] = mag * Math.cos(ang);
+    x[k + 1] = mag * Math.sin(ang);
+  }
+  return x;
+}
+
+/** r ← diag(x)·r·diag(x) */
+function scaleBoth(r: CMatrix, x: Float64Array): void {
+  const n = r.rows;
+  const d = r.data;
+  for (let i = 0; i < n; i++) {
+    const ar = x[2 * i]!;
+    const ai = x[2 * i + 1]!;
+    for (let j = 0; j < n; j++) {
+      const br = x[2 * j]!;
+      const bi = x[2 * j + 1]!;
+      const sr = ar * br - ai * bi;
+      const si = ar * bi + ai * br;
+      const p = 2 * (i * n + j);
+      const vr = d[p]!;
+      const vi = d[p + 1]!;
+      d[p] = sr * vr - si * vi;
+      d[p + 1] = sr * vi + si * vr;
+    }
+  }
+}
+
+function scaleRowsBy(m: CMatrix, x: Float64Array): void {
+  const c2 = 2 * m.cols;
+  const d = m.data;
+  for (let i = 0; i < m.rows; i++) {
+    const xr = x[2 * i]!;
+    const xi = x[2 * i + 1]!;
+    for (let p = i * c2; p < (i + 1) * c2; p += 2) {
+      const vr = d[p]!;
+      const vi = d[p + 1]!;
+      d[p] = xr * vr - xi * vi;
+      d[p + 1] = xr * vi + xi * vr;
+    }
+  }
+}
