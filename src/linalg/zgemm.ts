@@ -9,8 +9,14 @@
  */
 import type { CMatrix } from './cmatrix.ts';
 import { LinalgError } from './errors.ts';
+import { activeKernels, wasmZgemm } from './wasm/runtime.ts';
 
 const K_PANEL = 64;
+/**
+ * Below this many complex multiply-adds (m·n·k) the TypeScript loop beats the WebAssembly
+ * kernel, whose fixed cost is the copy in and out and the packing (scripts/bench-linalg.ts).
+ */
+const WASM_MIN_MADDS = 128;
 
 /**
  * @param out result, rows(a)×cols(b); must not alias `a` or `b`.
@@ -46,9 +52,32 @@ export function zgemm<T extends CMatrix>(
 
 /**
  * Unchecked kernel: C(m×n) = alpha·A(m×k)·B(k×n) + beta·C, all row-major interleaved with
- * leading dimensions equal to their column counts.
+ * leading dimensions equal to their column counts. Runs the WebAssembly SIMD kernel when that
+ * backend is active and the product is large enough, else the TypeScript loop below. C must not
+ * overlap A or B.
  */
 export function zgemmBase(
+  m: number,
+  n: number,
+  k: number,
+  alphaRe: number,
+  alphaIm: number,
+  A: Float64Array,
+  B: Float64Array,
+  betaRe: number,
+  betaIm: number,
+  C: Float64Array,
+): void {
+  const wasm = activeKernels();
+  if (wasm !== null && m * n * k >= WASM_MIN_MADDS && m > 0 && n > 0) {
+    wasmZgemm(wasm, m, n, k, alphaRe, alphaIm, A, B, betaRe, betaIm, C);
+    return;
+  }
+  zgemmTs(m, n, k, alphaRe, alphaIm, A, B, betaRe, betaIm, C);
+}
+
+// the pure-TypeScript product (fallback backend and small sizes)
+function zgemmTs(
   m: number,
   n: number,
   k: number,
@@ -96,7 +125,6 @@ export function zgemmBase(
           yi = alphaRe * yi + alphaIm * yr;
           yr = ur;
         }
-        if (xr === 0 && xi === 0 && yr === 0 && yi === 0) continue;
         const b0 = kk * n2;
         for (let j = 0; j < n2; j += 2) {
           const br = B[b0 + j]!;
@@ -119,7 +147,6 @@ export function zgemmBase(
           xi = alphaRe * xi + alphaIm * xr;
           xr = tr;
         }
-        if (xr === 0 && xi === 0) continue;
         const b0 = kk * n2;
         for (let j = 0; j < n2; j += 2) {
           const br = B[b0 + j]!;

@@ -10,6 +10,14 @@
  */
 import { allFinite, cmatrix, type CMatrix } from './cmatrix.ts';
 import { LinalgError } from './errors.ts';
+import { activeKernels, wasmZgetrf, wasmZgetrs } from './wasm/runtime.ts';
+
+/**
+ * Smallest order for which the WebAssembly LU beats the TypeScript loop, and smallest n·n·nrhs
+ * for the solve (measured: below these the copy in/out costs more than the loop saves).
+ */
+const WASM_MIN_N = 6;
+const WASM_MIN_SOLVE_MADDS = 128;
 
 /** The factors of P·A = L·U stored together: L (unit diagonal, below) and U (on and above). */
 export interface LUFactors {
@@ -49,6 +57,13 @@ export function zgetrf(a: Readonly<CMatrix>, out?: LUFactors): LUFactors {
  * exactly zero (the factorization is then incomplete).
  */
 export function zgetrfBase(n: number, A: Float64Array, ipiv: Int32Array): number {
+  const wasm = activeKernels();
+  if (wasm !== null && n >= WASM_MIN_N) return wasmZgetrf(wasm, n, A, ipiv);
+  return zgetrfTs(n, A, ipiv);
+}
+
+// unblocked right-looking LU in TypeScript (fallback backend and small sizes)
+function zgetrfTs(n: number, A: Float64Array, ipiv: Int32Array): number {
   const n2 = 2 * n;
   for (let k = 0; k < n; k++) {
     // pivot: largest |re| + |im| in column k at or below the diagonal (izamax's measure)
@@ -127,6 +142,16 @@ export function zgetrs<T extends CMatrix>(f: Readonly<LUFactors>, b: Readonly<CM
 
 /** Unchecked in-place solve of the n×m row-major right-hand side X. */
 export function zgetrsBase(n: number, m: number, LU: Float64Array, ipiv: Int32Array, X: Float64Array): void {
+  const wasm = activeKernels();
+  if (wasm !== null && n > 0 && m > 0 && n * n * m >= WASM_MIN_SOLVE_MADDS) {
+    wasmZgetrs(wasm, n, m, LU, ipiv, X);
+    return;
+  }
+  zgetrsTs(n, m, LU, ipiv, X);
+}
+
+// row-oriented substitution in TypeScript (fallback backend and small sizes)
+function zgetrsTs(n: number, m: number, LU: Float64Array, ipiv: Int32Array, X: Float64Array): void {
   const n2 = 2 * n;
   const m2 = 2 * m;
   // apply the row interchanges
