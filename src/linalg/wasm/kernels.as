@@ -122,7 +122,8 @@ function microKernel(kc: i32, pa: usize, pb: usize, pC: usize, ldc: i32, h: i32,
   let c21 = f64x2.splat(0);
   let c30 = f64x2.splat(0);
   let c31 = f64x2.splat(0);
-  for (let kk = 0; kk < kc; kk++) {
+  const paEnd = pa + (<usize>kc << 6);
+  while (pa < paEnd) {
     const b0 = v128.load(pb);
     const s0 = v128.load(pb, 16);
     const b1 = v128.load(pb, 32);
