@@ -109,13 +109,22 @@ export function zdiagRight<T extends CMatrix>(out: T, a: Readonly<CMatrix>, d: F
   return out;
 }
 
-/** out = a + diag(d) (a square), d interleaved complex. */
+/**
+ * out = a + diag(d): d_i added to entry (i, i) for i < min(rows, cols); d interleaved complex,
+ * length at least 2·min(rows, cols).
+ * @throws {LinalgError} 'shape' when out and a differ in shape or d is too short.
+ * @example
+ * zaddDiag(cmatrix(2, 2), identity(2), new Float64Array([1, 0, 0, 1])); // → [[2, 0], [0, 1 + i]]
+ */
 export function zaddDiag<T extends CMatrix>(out: T, a: Readonly<CMatrix>, d: Float64Array): T {
   sameShape('zaddDiag', out, a);
+  const n = Math.min(a.rows, a.cols);
+  if (d.length < 2 * n) throw new LinalgError('zaddDiag', 'shape', a.rows, `diagonal has ${d.length / 2} entries, need ${n}`);
   if (out.data !== a.data) out.data.set(a.data);
-  const n = a.rows;
+  // row stride is cols: entry (i, i) of a rows×cols matrix
+  const step = 2 * (a.cols + 1);
   for (let i = 0; i < n; i++) {
-    const p = 2 * (i * n + i);
+    const p = i * step;
     out.data[p] += d[2 * i]!;
     out.data[p + 1] += d[2 * i + 1]!;
   }
