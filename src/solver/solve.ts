@@ -11,6 +11,7 @@
  */
 import { cmatrix, type CMatrix, LinalgError } from '../linalg/index.ts';
 import { SolverError } from './errors.ts';
+import { directionAngles } from './grating-equation.ts';
 import { isLossless, permittivityOf, profileCoefficients } from './fourier.ts';
 import { type Family, homogeneousModes, type Modes, modulatedModes } from './modes.ts';
 import { solveStack } from './stack.ts';
@@ -314,13 +315,15 @@ function orderResults(
     const numi = kzr * t1i + kzi * t1r - kt * Ez[1];
     const nn = nr * nr + ni * ni;
     const Ap: Complex = { re: (numr * nr + numi * ni) / nn, im: (numi * nr - numr * ni) / nn };
-    const sinT = Math.min(1, kt / nr);
-    let thetaDeg = propagating ? Math.asin(sinT) / DEG : 90;
+    // angles as in grating-equation.ts: θm signed like kx, φm = atan(ky/kx) in (−90°, 90°]
+    let thetaDeg = 90;
     let phiDeg = 0;
-    if (g.classical) {
-      if (kx[i]! < 0) thetaDeg = -thetaDeg;
-    } else {
-      phiDeg = Math.atan2(ky, kx[i]!) / DEG;
+    if (propagating) {
+      const a = directionAngles(kx[i]! / nr, ky / nr); // kt < n here
+      thetaDeg = a.thetaRad / DEG;
+      phiDeg = a.phiRad / DEG;
+    } else if (kx[i]! < 0) {
+      thetaDeg = -90;
     }
     all.push({
       m: g.orders[i]!,

@@ -102,12 +102,12 @@ export interface OrderResult {
   /** z-flux of the order over the incident z-flux */
   readonly efficiency: number;
   /**
-   * Polar angle of the order's wavevector from the normal of its medium (deg). In the classical
-   * mount the sign follows the grating equation (sign of kx); in conical, 0…90 with `phiDeg`.
-   * NaN-free: evanescent orders report 90.
+   * Polar angle of the order's wavevector from the normal of its medium (deg), signed like kx so
+   * that the classical mount reads as the grating equation (n·sinθm = n_c·sinθ + mλ/Λ); with
+   * `phiDeg` the direction is (sinθm·cosφm, sinθm·sinφm, ∓cosθm). Evanescent orders report ±90.
    */
   readonly thetaDeg: number;
-  /** azimuth atan2(ky, kx) of the wavevector (deg); 0 in the classical mount */
+  /** azimuth atan(ky/kx) of the wavevector in (−90°, 90°] (deg); 0 in the classical mount */
   readonly phiDeg: number;
   /** complex amplitude on the order's own s unit vector, relative to the incident field */
   readonly amplitudeS: Complex;

@@ -1,0 +1,7 @@
+/** The built-in demo design (an invented example, not a product). */
+import { designToProblem, type Problem } from '../design/index.ts';
+import example from '../design/examples/gold-lamellar.json' with { type: 'json' };
+
+export function demoDesign(): Problem {
+  return designToProblem(example);
+}

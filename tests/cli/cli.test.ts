@@ -1,0 +1,72 @@
+/** The command line as a user meets it: output, JSON, and errors without stack traces. */
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { main } from '../../src/cli/main.ts';
+
+async function run(...args: string[]): Promise<{ code: number; text: string }> {
+  const lines: string[] = [];
+  const code = await main(['node', 'furrow', ...args], (s) => lines.push(s));
+  return { code, text: lines.join('\n') };
+}
+
+const dir = mkdtempSync(join(tmpdir(), 'furrow-cli-'));
+const write = (name: string, content: unknown): string => {
+  const p = join(dir, name);
+  writeFileSync(p, typeof content === 'string' ? content : JSON.stringify(content));
+  return p;
+};
+
+describe('furrow CLI', () => {
+  const glass = write('glass.json', { title: 'bare glass', period: '1 um', substrate: 1.5, incidence: { wavelength: '600 nm', angleDeg: 0 }, orders: 3 });
+
+  it('`furrow solve` prints the order table with R = 0.04 for bare n = 1.5 glass at normal incidence (Fresnel)', async () => {
+    const r = await run('solve', glass);
+    expect(r.code).toBe(0);
+    expect(r.text).toMatch(/design\s+bare glass/);
+    expect(r.text).toMatch(/R \(reflected\)\s+0\.040000000\s+0\.040000000/);
+  });
+
+  it('`furrow solve --json` prints the documented result with its input', async () => {
+    const r = await run('solve', glass, '--json');
+    const j = JSON.parse(r.text);
+    expect(j.result.solver.name).toBe('furrow');
+    expect(j.input.structure.periodUm).toBe(1);
+    expect(Math.abs(j.result.s.R - 0.04)).toBeLessThan(1e-14);
+    expect(j.result.s.reflected[0]).toHaveProperty('amplitudeS');
+  });
+
+  it('`furrow orders` lists the order directions from the grating equation (λ/Λ = 0.6, normal incidence: θ±1 = ±36.870°)', async () => {
+    const r = await run('orders', glass);
+    expect(r.code).toBe(0);
+    expect(r.text).toMatch(/\s1\s+36\.870/);
+  });
+
+  it('`furrow demo` solves the built-in example and its lossless checks hold', async () => {
+    const r = await run('demo');
+    expect(r.code).toBe(0);
+    expect(r.text).toMatch(/A = 1 − R − T/);
+  });
+
+  it('a malformed design gives a clear message and exit code 2, no stack trace', async () => {
+    const bad = write('bad.json', { period: '1 um', substrate: 1.5, incidence: { wavelength: '600 nm' }, layers: [{ thickness: '10 nm', segments: [{ width: 0.4, index: 2 }] }] });
+    const r = await run('solve', bad);
+    expect(r.code).toBe(2);
+    expect(r.text).toMatch(/^furrow: invalid design — layers\[0\]\.segments: segment widths/);
+    expect(r.text).not.toMatch(/at .*\.ts:\d+/);
+  });
+
+  it('a missing file and bad JSON are reported plainly', async () => {
+    expect((await run('solve', join(dir, 'none.json'))).text).toMatch(/cannot read design file .*ENOENT/);
+    const r = await run('solve', write('broken.json', '{ "period": '));
+    expect(r.code).toBe(2);
+    expect(r.text).toMatch(/not valid JSON/);
+  });
+
+  it('--orders must be a whole number', async () => {
+    const r = await run('solve', glass, '--orders', 'many');
+    expect(r.code).toBe(2);
+    expect(r.text).toMatch(/--orders: expected an integer/);
+  });
+});
