@@ -1,0 +1,82 @@
+/**
+ * Timing of zgeev (not a test): median wall time per call at the sizes the solver uses, with a
+ * reused workspace, plus a per-phase breakdown. Run: `npx tsx scripts/bench-zgeev.ts [sizes…]`.
+ */
+import { cmatrix, type CMatrix } from '../src/linalg/cmatrix.ts';
+import { zgebal } from '../src/linalg/zgebal.ts';
+import { ZgeevWorkspace, zgeev } from '../src/linalg/zgeev.ts';
+import { zgehrd, zunghr } from '../src/linalg/zgehrd.ts';
+import { zhseqr } from '../src/linalg/zhseqr.ts';
+import { ztrevc } from '../src/linalg/ztrevc.ts';
+
+function randomMatrix(n: number, seed: number): CMatrix {
+  let s = seed >>> 0;
+  const a = cmatrix(n, n);
+  for (let k = 0; k < a.data.length; k++) {
+    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
+    a.data[k] = s / 2 ** 31 - 1;
+  }
+  return a;
+}
+
+function median(xs: number[]): number {
+  const s = [...xs].sort((x, y) => x - y);
+  return s[s.length >> 1]!;
+}
+
+function time(reps: number, f: () => void): number {
+  const ts: number[] = [];
+  for (let r = 0; r < reps; r++) {
+    const t0 = performance.now();
+    f();
+    ts.push(performance.now() - t0);
+  }
+  return median(ts);
+}
+
+const sizes = process.argv.length > 2 ? process.argv.slice(2).map(Number) : [21, 51, 101, 201];
+for (const n of sizes) {
+  const a = randomMatrix(n, 1234 + n);
+  const ws = new ZgeevWorkspace(n);
+  const reps = Math.max(7, Math.round(3000 / n));
+  for (let w = 0; w < 3 * reps; w++) zgeev(a, {}, ws); // warm-up (JIT)
+  const tv = time(reps, () => zgeev(a, {}, ws));
+  const te = time(reps, () => zgeev(a, { vectors: false }, ws));
+
+  // Phase breakdown on the same matrix.
+  const v = new Float64Array(2 * n * n);
+  const w = new Float64Array(2 * n);
+  const ph = [0, 0, 0, 0, 0];
+  const phases: number[][] = [[], [], [], [], []];
+  for (let r = 0; r < reps; r++) {
+    let t = performance.now();
+    ws.h.set(a.data);
+    zgebal(n, ws.h, ws.scale, ws.range, true, true);
+    const ilo = ws.range[0]!;
+    const ihi = ws.range[1]!;
+    let t2 = performance.now();
+    phases[0]!.push(t2 - t);
+    t = t2;
+    zgehrd(n, ilo, ihi, ws.h, ws.aux, ws.tau, ws.work);
+    t2 = performance.now();
+    phases[1]!.push(t2 - t);
+    t = t2;
+    zunghr(n, ilo, ihi, ws.aux, ws.tau, ws.z, ws.work);
+    t2 = performance.now();
+    phases[2]!.push(t2 - t);
+    t = t2;
+    zhseqr(n, ilo, ihi, ws.h, true, ws.z, w, ws.rotC, ws.rotS, ws.qr);
+    t2 = performance.now();
+    phases[3]!.push(t2 - t);
+    t = t2;
+    ztrevc(n, ws.h, ws.z, ilo, ihi, ws.aux, v, ws.work);
+    t2 = performance.now();
+    phases[4]!.push(t2 - t);
+  }
+  for (let k = 0; k < 5; k++) ph[k] = median(phases[k]!);
+  console.log(
+    `n=${n}: zgeev ${tv.toFixed(3)} ms (values only ${te.toFixed(3)} ms) | ` +
+      `gebal ${ph[0]!.toFixed(2)} gehrd ${ph[1]!.toFixed(2)} unghr ${ph[2]!.toFixed(2)} ` +
+      `hseqr ${ph[3]!.toFixed(2)} trevc ${ph[4]!.toFixed(2)}`,
+  );
+}
