@@ -62,6 +62,10 @@ function unitPhase(re: number, im: number, out: Float64Array): void {
  * @param tau out, length ≥ n−1: τ_k (0 when H_k = I).
  * @param phase out, length ≥ 2n: interleaved δ_k of the phase scaling D.
  * @param work scratch, length ≥ 2n.
+ * @example
+ * // [[2, −i], [i, 2]] is already tridiagonal: T = [[2, 1], [1, 2]] with D = diag(1, i)
+ * const A = fromRows([[2, [0, -1]], [[0, 1], 2]]).data, d = new Float64Array(2), e = new Float64Array(2);
+ * zhetrdBase(2, A, d, e, new Float64Array(2), new Float64Array(4), new Float64Array(4)); // d = [2, 2], e[0] = 1
  */
 export function zhetrdBase(
   n: number,
@@ -328,6 +332,10 @@ export const BACK_TRANSFORM_BLOCK = 4;
  * @param y n×n real row-major, read only.
  * @param Z out, n×n interleaved row-major (fully overwritten).
  * @param work scratch, length ≥ 16n.
+ * @example
+ * // after zhetrdBase and zsteqrBase(n, d, e, y, …): the eigenvectors of A
+ * const vectors = cmatrix(n, n);
+ * zhetrdBackTransform(n, A, tau, phase, y, vectors.data, new Float64Array(16 * n));
  */
 export function zhetrdBackTransform(
   n: number,

@@ -47,6 +47,10 @@ export const ZSTEQR_MAXIT = 30;
  *   failure report).
  * @returns 0 on success; otherwise the number of off-diagonals that had not converged to zero
  *   within maxitPerN·n QL/QR steps (d and y are then not meaningful).
+ * @example
+ * // T = tridiag(1, 2, 1) of order 2 has eigenvalues 1 and 3
+ * const d = Float64Array.of(2, 2), e = Float64Array.of(1, 0), y = Float64Array.of(1, 0, 0, 1);
+ * zsteqrBase(2, d, e, y, new Float64Array(4)); // 0; d = [1, 3], y columns ±(1, −1)/√2, ±(1, 1)/√2
  */
 export function zsteqrBase(
   n: number,
