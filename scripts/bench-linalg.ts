@@ -163,6 +163,9 @@ export async function runLinalgBench(options: BenchOptions = {}): Promise<BenchR
   const zgeev = await loadEigen('../src/linalg/zgeev.ts', 'zgeev');
   const zheev = await loadEigen('../src/linalg/zheev.ts', 'zheev');
   const ours = new Map<string, number | null>();
+  const wantNumpy = options.numpy ?? true;
+  const numpyTimes = new Map<string, number>();
+  let numpyNote = wantNumpy ? '' : 'numpy comparison not requested';
   try {
     for (const n of sizes) {
       const a = randomMatrix(n, 1000 + n);
@@ -175,25 +178,27 @@ export async function runLinalgBench(options: BenchOptions = {}): Promise<BenchR
       ours.set(`zgesv:${n}`, medianMs(() => zgesv(a, b, out, f), repeats));
       ours.set(`zgeev:${n}`, zgeev ? medianMs(() => zgeev(a, { vectors: true }), repeats) : null);
       ours.set(`zheev:${n}`, zheev ? medianMs(() => zheev(h, { vectors: true }), repeats) : null);
+      // numpy right after ours at each size, so slow drifts in machine load hit both alike
+      if (wantNumpy && (numpyNote === '' || numpyTimes.size > 0)) {
+        log(`timing numpy (single-threaded), n = ${n} …`);
+        const run = runNumpy([n], repeats, BENCH_KERNELS);
+        numpyNote = run.note;
+        if (run.times.size === 0) log(run.note);
+        for (const [key, ms] of run.times) numpyTimes.set(key, ms);
+      }
     }
   } finally {
     setLinalgBackend(previous);
-  }
-  let numpy: NumpyRun = { times: new Map(), note: 'numpy comparison not requested' };
-  if (options.numpy ?? true) {
-    log('timing numpy (single-threaded) …');
-    numpy = runNumpy(sizes, repeats, BENCH_KERNELS);
-    if (numpy.times.size === 0) log(numpy.note);
   }
   const rows: BenchRow[] = [];
   for (const kernel of BENCH_KERNELS) {
     for (const n of sizes) {
       const m = ours.get(`${kernel}:${n}`) ?? null;
-      const p = numpy.times.get(`${kernel}:${n}`) ?? null;
+      const p = numpyTimes.get(`${kernel}:${n}`) ?? null;
       rows.push({ kernel, n, median_ms: m, numpy_ms: p, ratio: m !== null && p !== null && p > 0 ? m / p : null });
     }
   }
-  return { rows, backend, numpyNote: numpy.note };
+  return { rows, backend, numpyNote };
 }
 
 function fmt(v: number | null, digits: number): string {

@@ -36,8 +36,27 @@ def blas_info():
             {k: p.get(k) for k in ("internal_api", "version", "architecture", "num_threads")} for p in pools
         ]
     except ImportError:
-        info["blas"] = "threadpoolctl not installed (kernel architecture not reported)"
+        info["blas"] = openblas_corename() or "threadpoolctl not installed (kernel architecture not reported)"
     return info
+
+
+def openblas_corename():
+    """Name of the OpenBLAS kernel in use, read from the library numpy bundles (or None)."""
+    import ctypes
+    import glob
+
+    libdir = os.path.join(os.path.dirname(np.__file__), "..", "numpy.libs")
+    for path in glob.glob(os.path.join(libdir, "*openblas*")):
+        try:
+            lib = ctypes.CDLL(path)
+        except OSError:
+            continue
+        for name in ("scipy_openblas_get_corename64_", "scipy_openblas_get_corename", "openblas_get_corename"):
+            fn = getattr(lib, name, None)
+            if fn is not None:
+                fn.restype = ctypes.c_char_p
+                return "OpenBLAS kernel " + fn().decode()
+    return None
 
 
 def median_ms(fn, repeats):
