@@ -14,7 +14,12 @@ function sameShape(kernel: string, out: Readonly<CMatrix>, ...xs: Readonly<CMatr
   }
 }
 
-/** out = a + b. */
+/**
+ * out = a + b (all r×c).
+ * @throws {LinalgError} 'shape' when the shapes differ.
+ * @example
+ * zadd(cmatrix(1, 1), fromRows([[1]]), fromRows([[[0, 2]]])); // → [[1 + 2i]]
+ */
 export function zadd<T extends CMatrix>(out: T, a: Readonly<CMatrix>, b: Readonly<CMatrix>): T {
   sameShape('zadd', out, a, b);
   const o = out.data;
@@ -24,7 +29,12 @@ export function zadd<T extends CMatrix>(out: T, a: Readonly<CMatrix>, b: Readonl
   return out;
 }
 
-/** out = a − b. */
+/**
+ * out = a − b (all r×c).
+ * @throws {LinalgError} 'shape' when the shapes differ.
+ * @example
+ * zsub(cmatrix(1, 1), fromRows([[3]]), fromRows([[1]])); // → [[2]]
+ */
 export function zsub<T extends CMatrix>(out: T, a: Readonly<CMatrix>, b: Readonly<CMatrix>): T {
   sameShape('zsub', out, a, b);
   const o = out.data;
@@ -34,7 +44,12 @@ export function zsub<T extends CMatrix>(out: T, a: Readonly<CMatrix>, b: Readonl
   return out;
 }
 
-/** out = alpha·a, alpha = [re, im]. */
+/**
+ * out = alpha·a (both r×c), alpha = [re, im].
+ * @throws {LinalgError} 'shape' when the shapes differ.
+ * @example
+ * zscal(cmatrix(1, 1), [0, 1], fromRows([[2]])); // → [[2i]]
+ */
 export function zscal<T extends CMatrix>(out: T, alpha: readonly [number, number], a: Readonly<CMatrix>): T {
   sameShape('zscal', out, a);
   const [ar, ai] = alpha;
@@ -49,7 +64,12 @@ export function zscal<T extends CMatrix>(out: T, alpha: readonly [number, number
   return out;
 }
 
-/** y = alpha·x + y (BLAS zaxpy on whole matrices); returns y. */
+/**
+ * y = alpha·x + y (BLAS zaxpy on whole r×c matrices); returns y. x may be y itself.
+ * @throws {LinalgError} 'shape' when the shapes differ.
+ * @example
+ * zaxpy(fromRows([[1]]), [2, 0], fromRows([[3]])); // → [[7]]
+ */
 export function zaxpy<T extends CMatrix>(y: T, alpha: readonly [number, number], x: Readonly<CMatrix>): T {
   sameShape('zaxpy', y, x);
   const [ar, ai] = alpha;
@@ -65,8 +85,12 @@ export function zaxpy<T extends CMatrix>(y: T, alpha: readonly [number, number],
 }
 
 /**
- * out = diag(d)·a: row i of `a` scaled by d_i. `d` is interleaved complex, length 2·rows.
- * Equivalent to, but O(n²) instead of O(n³), a product with a dense diagonal matrix.
+ * out = diag(d)·a: row i of the r×c matrix `a` scaled by d_i. `d` is interleaved complex,
+ * length at least 2·r. Equivalent to, but O(n²) instead of O(n³), a product with a dense
+ * diagonal matrix.
+ * @throws {LinalgError} 'shape' when out and a differ in shape or d is too short.
+ * @example
+ * zdiagLeft(cmatrix(2, 1), new Float64Array([2, 0, 0, 1]), fromRows([[1], [1]])); // → [[2], [i]]
  */
 export function zdiagLeft<T extends CMatrix>(out: T, d: Float64Array, a: Readonly<CMatrix>): T {
   sameShape('zdiagLeft', out, a);
@@ -88,7 +112,13 @@ export function zdiagLeft<T extends CMatrix>(out: T, d: Float64Array, a: Readonl
   return out;
 }
 
-/** out = a·diag(d): column j of `a` scaled by d_j. `d` is interleaved complex, length 2·cols. */
+/**
+ * out = a·diag(d): column j of the r×c matrix `a` scaled by d_j. `d` is interleaved complex,
+ * length at least 2·c.
+ * @throws {LinalgError} 'shape' when out and a differ in shape or d is too short.
+ * @example
+ * zdiagRight(cmatrix(1, 2), fromRows([[1, 1]]), new Float64Array([2, 0, 0, 1])); // → [[2, i]]
+ */
 export function zdiagRight<T extends CMatrix>(out: T, a: Readonly<CMatrix>, d: Float64Array): T {
   sameShape('zdiagRight', out, a);
   if (d.length < 2 * a.cols) throw new LinalgError('zdiagRight', 'shape', a.cols, `diagonal has ${d.length / 2} entries, need ${a.cols}`);

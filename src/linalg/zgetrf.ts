@@ -5,6 +5,9 @@
  * Factor once, solve many times: the solver factors each interface matrix once and applies it to
  * several blocks. Right-looking elimination: in row-major storage the rank-1 update of the
  * trailing matrix runs along rows with unit stride; only the pivot search walks a column.
+ * On the WebAssembly backend (wasm/kernels.as) the factorization and the solves are blocked in
+ * panels of 32, so nearly all of their arithmetic runs in the SIMD multiply; the pivot order is
+ * the same as the unblocked loop's (same measure, same tie rule).
  * Reference: Golub & Van Loan, Matrix Computations, 4th ed., Alg. 3.4.1; LAPACK Users' Guide,
  * 3rd ed. (SIAM 1999), zgetrf/zgetrs.
  */
@@ -127,8 +130,11 @@ function zgetrfTs(n: number, A: Float64Array, ipiv: Int32Array): number {
 }
 
 /**
- * Solve A·X = B using the factors of A. `b` is n×nrhs; `out` may be `b` itself (in place).
+ * Solve A·X = B using the factors of A. `b` is n×nrhs; `out` (n×nrhs) may be `b` itself.
+ * @returns out = A⁻¹·b
  * @throws {LinalgError} 'shape' when sizes disagree.
+ * @example
+ * zgetrs(zgetrf(fromRows([[2, 0], [0, 4]])), fromRows([[2], [4]])); // → [[1], [1]]
  */
 export function zgetrs<T extends CMatrix>(f: Readonly<LUFactors>, b: Readonly<CMatrix>, out?: T): T | CMatrix {
   const n = f.n;
@@ -225,8 +231,11 @@ function zgetrsTs(n: number, m: number, LU: Float64Array, ipiv: Int32Array, X: F
 }
 
 /**
- * Solve A·X = B (factor + solve). `out` may be `b`.
+ * Solve A·X = B (factor + solve): A n×n, b and out n×nrhs; `out` may be `b`; `factors`
+ * (order n) is reused storage for the LU factors.
  * @throws {LinalgError} as zgetrf and zgetrs.
+ * @example
+ * zgesv(fromRows([[0, 1], [1, 0]]), fromRows([[3], [5]])); // → [[5], [3]]
  */
 export function zgesv<T extends CMatrix>(a: Readonly<CMatrix>, b: Readonly<CMatrix>, out?: T, factors?: LUFactors): T | CMatrix {
   const f = zgetrf(a, factors);
@@ -234,8 +243,11 @@ export function zgesv<T extends CMatrix>(a: Readonly<CMatrix>, b: Readonly<CMatr
 }
 
 /**
- * Inverse of A (via LU and n right-hand sides of the identity).
- * @throws {LinalgError} 'singular' for a singular matrix.
+ * Inverse of the n×n matrix A (via LU and n right-hand sides of the identity) into `out`
+ * (n×n). Prefer zgetrs/zgesv when the inverse is only applied.
+ * @throws {LinalgError} 'singular' for a singular matrix; as zgetrf otherwise.
+ * @example
+ * zgetri(fromRows([[[0, 2]]])); // → [[−0.5i]]
  */
 export function zgetri<T extends CMatrix>(a: Readonly<CMatrix>, out?: T, factors?: LUFactors): T | CMatrix {
   const n = a.rows;
