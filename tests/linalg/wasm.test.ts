@@ -2,8 +2,10 @@
  * The WebAssembly SIMD kernels against the pure-TypeScript kernels on the same inputs, and the
  * generated module against its source.
  */
+import { spawnSync } from 'node:child_process';
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
 import { afterEach, describe, expect, it } from 'vitest';
 import { cmatrix, type CMatrix } from '../../src/linalg/cmatrix.ts';
 import { zgemm } from '../../src/linalg/zgemm.ts';
@@ -42,6 +44,19 @@ describe('generated module', () => {
     // check value: Node ≥ 16.4 ships wasm SIMD enabled (V8 9.1), so the project's engine has it
     expect(wasmStatus()).toBe('loaded');
     expect(wasmAvailable()).toBe(true);
+  });
+
+  it('FURROW_NO_WASM=1 starts on the TypeScript backend', () => {
+    // check value: the documented environment switch (runtime.ts), read once at import
+    const script = "import { linalgBackend } from './src/linalg/wasm/runtime.ts'; console.log(linalgBackend());";
+    const run = (extra: Record<string, string>) =>
+      spawnSync(process.execPath, ['--import', 'tsx', '--input-type=module', '-e', script], {
+        cwd: fileURLToPath(new URL('../..', import.meta.url)),
+        env: { ...process.env, FURROW_NO_WASM: '', ...extra },
+        encoding: 'utf8',
+      }).stdout.trim();
+    expect(run({ FURROW_NO_WASM: '1' })).toBe('ts');
+    expect(run({})).toBe('wasm');
   });
 
   it('backend switch', () => {
