@@ -15,7 +15,7 @@
 import { allFinite, cmatrix, type CMatrix } from './cmatrix.ts';
 import { LinalgError } from './errors.ts';
 import { zgebak, zgebal } from './zgebal.ts';
-import { zgehrd, zunghr } from './zgehrd.ts';
+import { zgehrd, zgehrdWorkLength, zunghr, zunghrWorkLength } from './zgehrd.ts';
 import { QrScratch, qrIterationCap, zhseqr } from './zhseqr.ts';
 import { ztrevc } from './ztrevc.ts';
 
@@ -36,7 +36,7 @@ export interface ZgeevOptions {
 
 /**
  * All scratch storage for {@link zgeev} at order n, allocated once and reused across calls
- * (about 6n² doubles). A workspace must not be shared by two calls running at the same time
+ * (about 6n² + 260n doubles). A workspace must not be shared by two calls running at the same time
  * (e.g. across an `await` in a worker that interleaves calls).
  *
  * @example
@@ -47,13 +47,13 @@ export class ZgeevWorkspace {
   readonly n: number;
   /** n×n working matrix: balanced A, then H, then T. */
   readonly h: Float64Array;
-  /** n×n: Q of the Hessenberg reduction, then the Schur vectors Q·Z. */
+  /** n×n: scratch of the blocked Hessenberg reduction, then Q, then the Schur vectors Q·Z. */
   readonly z: Float64Array;
   /** n×n: Householder vectors, then the eigenvector coefficients X of T. */
   readonly aux: Float64Array;
   /** 2n: Householder scalars. */
   readonly tau: Float64Array;
-  /** 2n: general vector scratch. */
+  /** General scratch, also for the blocked reduction and formation of Q (zgehrd/zunghr). */
   readonly work: Float64Array;
   /** n: balancing permutation and scaling. */
   readonly scale: Float64Array;
@@ -75,7 +75,7 @@ export class ZgeevWorkspace {
     this.z = new Float64Array(2 * n * n);
     this.aux = new Float64Array(2 * n * n);
     this.tau = new Float64Array(2 * n);
-    this.work = new Float64Array(2 * n);
+    this.work = new Float64Array(Math.max(2 * n, zunghrWorkLength(n), zgehrdWorkLength(n)));
     this.scale = new Float64Array(n);
     this.rotC = new Float64Array(n);
     this.rotS = new Float64Array(2 * n);
@@ -131,7 +131,7 @@ export function zgeev(a: Readonly<CMatrix>, options: ZgeevOptions = {}, workspac
   zgebal(n, h, scale, range, balance, balance);
   const ilo = range[0]!;
   const ihi = range[1]!;
-  zgehrd(n, ilo, ihi, h, aux, tau, work);
+  zgehrd(n, ilo, ihi, h, aux, tau, work, z); // z is free until zunghr: panel scratch
   if (wantv) zunghr(n, ilo, ihi, aux, tau, z, work);
   const info = zhseqr(n, ilo, ihi, h, wantv, wantv ? z : null, values, rotC, rotS, qr);
   if (info > 0) {
@@ -151,7 +151,7 @@ export function zgeev(a: Readonly<CMatrix>, options: ZgeevOptions = {}, workspac
 
   const vectors = cmatrix(n, n);
   const v = vectors.data;
-  ztrevc(n, h, z, ilo, ihi, aux, v, work);
+  ztrevc(n, h, z, aux, v, work);
   zgebak(n, n, ilo, ihi, scale, v);
   normalizeColumns(n, v, work, rotC);
   if (!allFinite(v)) {
