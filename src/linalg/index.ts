@@ -11,3 +11,4 @@ export * from './zsqrt.ts';
 export * from './toeplitz.ts';
 export * from './zgetrsRight.ts';
 export * from './zpotrf.ts';
+export * from './zgetrsT.ts';

@@ -14,7 +14,7 @@
  * S = (A + B)/2 and Δ = (A − B)/2:  c'+ = S⁻¹c+ and c− = Δ·S⁻¹·c+, so the reflection matrix
  * at the bottom of medium j is Δ·S⁻¹ and at its top X·Δ·S⁻¹·X.
  */
-import { cmatrix, type CMatrix, type LUFactors, zgetrf, zgetrs, zgetrsRight, zgemm } from '../linalg/index.ts';
+import { cmatrix, type CMatrix, type LUFactors, zgetrf, zgetrs, zgetrsT, zgemm } from '../linalg/index.ts';
 import type { Modes } from './modes.ts';
 
 export interface StackResult {
@@ -39,6 +39,7 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
   const F = cmatrix(n, n);
   const G = cmatrix(n, n);
   const tmp = cmatrix(n, n);
+  const tmp2 = cmatrix(n, n);
   for (let j = L; j >= 0; j--) {
     const upper = media[j]!;
     const lower = media[j + 1]!;
@@ -56,37 +57,69 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
     upper.solveW(F, F); // A
     upper.solveV(G, G); // B
     // S = (A + B)/2 into tmp, Δ = (A − B)/2 into F
+    // Sᵀ = (A + B)ᵀ/2 into tmp and Δ = (A − B)/2 into F, or Δᵀ into tmp2 when R is needed: the
+    // factors of Sᵀ give R = Δ·S⁻¹ as (S⁻ᵀ·Δᵀ)ᵀ, an ordinary left solve (the fast kernel), and
+    // S·x = c as a transposed solve on the few incident columns
     const f = F.data;
     const g = G.data;
     const t = tmp.data;
-    for (let p = 0; p < f.length; p++) {
-      const a = f[p]!;
-      const b = g[p]!;
-      t[p] = 0.5 * (a + b);
-      f[p] = 0.5 * (a - b);
+    const last = j === 0;
+    for (let r = 0; r < n; r++) {
+      for (let c = 0; c < n; c++) {
+        const p = 2 * (r * n + c);
+        const q = 2 * (c * n + r);
+        const ar = f[p]!;
+        const ai = f[p + 1]!;
+        const br = g[p]!;
+        const bi = g[p + 1]!;
+        t[q] = 0.5 * (ar + br);
+        t[q + 1] = 0.5 * (ai + bi);
+        if (last) {
+          f[p] = 0.5 * (ar - br);
+          f[p + 1] = 0.5 * (ai - bi);
+        } else {
+          tmp2.data[q] = 0.5 * (ar - br);
+          tmp2.data[q + 1] = 0.5 * (ai - bi);
+        }
+      }
     }
     lus[j] = zgetrf(tmp);
-    if (j === 0) {
+    if (last) {
       delta0 = F;
       break;
     }
-    // R at the bottom of medium j = Δ·S⁻¹; at its top X·R·X
+    // R at the bottom of medium j = Δ·S⁻¹ = (S⁻ᵀ·Δᵀ)ᵀ; at its top X·R·X
+    zgetrs(lus[j]!, tmp2, tmp2);
     const r: CMatrix = rTop ?? cmatrix(n, n);
-    zgetrsRight(lus[j]!, F, r);
+    transposeInto(r, tmp2);
     const x = phase(upper.q, thickness[j]!);
     scaleBoth(r, x);
     rTop = r;
   }
   // carry the incident amplitudes down: c+ (top of medium j+1) = S_j⁻¹ · X_j · c+ (top of j)
   const c = incident.cols;
-  let cur = zgetrs(lus[0]!, incident) as CMatrix;
+  let cur = zgetrsT(lus[0]!, incident) as CMatrix;
   const reflected = zgemm(cmatrix(n, c), delta0!, cur);
   for (let j = 1; j <= L; j++) {
     const x = phase(media[j]!.q, thickness[j]!);
     scaleRowsBy(cur, x);
-    cur = zgetrs(lus[j]!, cur, cur) as CMatrix;
+    cur = zgetrsT(lus[j]!, cur, cur) as CMatrix;
   }
   return { reflected, transmitted: cur };
+}
+
+function transposeInto(out: CMatrix, a: Readonly<CMatrix>): void {
+  const n = a.rows;
+  const o = out.data;
+  const d = a.data;
+  for (let r = 0; r < n; r++) {
+    for (let c = 0; c < n; c++) {
+      const p = 2 * (r * n + c);
+      const q = 2 * (c * n + r);
+      o[q] = d[p]!;
+      o[q + 1] = d[p + 1]!;
+    }
+  }
 }
 
 function setIdentity(m: CMatrix): void {
