@@ -62,7 +62,7 @@ export class ZgeevWorkspace {
   readonly rotS: Float64Array;
   /** ilo, ihi from balancing. */
   readonly range: Int32Array;
-  /** Deflation-window scratch of the QR iteration. */
+  /** Working storage of the QR iteration (owns h and z). */
   readonly qr: QrScratch;
 
   /** @throws {RangeError} when n is not a non-negative integer */
@@ -71,8 +71,10 @@ export class ZgeevWorkspace {
       throw new RangeError(`ZgeevWorkspace: n must be a non-negative integer, got ${n}`);
     }
     this.n = n;
-    this.h = new Float64Array(2 * n * n);
-    this.z = new Float64Array(2 * n * n);
+    this.qr = new QrScratch(n);
+    // H and Z live in the QR scratch's memory, where the SIMD rotation kernels can reach them.
+    this.h = this.qr.h;
+    this.z = this.qr.z;
     this.aux = new Float64Array(2 * n * n);
     this.tau = new Float64Array(2 * n);
     this.work = new Float64Array(Math.max(2 * n, zunghrWorkLength(n), zgehrdWorkLength(n)));
@@ -80,7 +82,6 @@ export class ZgeevWorkspace {
     this.rotC = new Float64Array(n);
     this.rotS = new Float64Array(2 * n);
     this.range = new Int32Array(2);
-    this.qr = new QrScratch(n);
   }
 }
 

@@ -17,8 +17,9 @@
  *   QR algorithm. Part II: Aggressive early deflation", SIAM J. Matrix Anal. Appl. 23, 2002; the
  *   LAPACK routines zlaqr0/zlaqr3): the trailing window is reduced to Schur form, eigenvalues
  *   whose "spike" coupling to the rest is negligible are deflated at once, and the others are
- *   used as the shifts of the following sweeps. It typically halves the number of sweeps, which
- *   dominate the cost;
+ *   (the third nearest the bottom) are used as the shifts of the following sweeps. On random
+ *   matrices of order 200 this saves about a quarter of the rotation work, which dominates the
+ *   cost;
  * - an iteration cap of 30 sweeps per eigenvalue of the active block (total), after which the
  *   kernel reports failure instead of looping forever.
  *
@@ -35,6 +36,8 @@
  * @module
  */
 import { zgehrd, zunmhrRight } from './zgehrd.ts';
+import { zgemmBase } from './zgemm.ts';
+import { linalgBackend } from './wasm/runtime.ts';
 
 /** Sweeps allowed per eigenvalue of the active block, in total over the whole reduction. */
 export const QR_SWEEPS_PER_EIGENVALUE = 30;
@@ -54,8 +57,15 @@ const KEXSH = 10;
 const KEXAED = 4;
 /** Size of the exceptional shift relative to the subdiagonal entry it is built from. */
 const DAT1 = 0.75;
-/** Active blocks at least this large use aggressive early deflation. */
-export const AED_MIN_ORDER = 40;
+/** Active blocks at least this large use aggressive early deflation (below, it does not pay). */
+export const AED_MIN_ORDER = 60;
+/**
+ * Fraction of a window's undeflated eigenvalues used as shifts before the next window is tried:
+ * those that were nearest the bottom. Measured on random matrices of order 100–200 (counting
+ * rotations and products, scripts/bench-zgeev.ts for time), a third gave the least work; using
+ * all of them as separate single-shift sweeps spends many sweeps on still-poor shifts.
+ */
+const SHIFT_FRACTION = 1 / 3;
 /** Percentage of the window that must deflate for the next window to be tried before sweeping. */
 const NIBBLE = 14;
 
@@ -75,10 +85,17 @@ const OUT = new Float64Array(2);
 const ROT = new Float64Array(5);
 
 /**
- * Scratch for the aggressive-early-deflation window of {@link zhseqr} at order n (allocated once
- * per workspace; about 6·w² + 2·w·n doubles for the largest window w).
+ * Working storage of {@link zhseqr} at order n, allocated once per workspace: the n×n matrices
+ * H and Z themselves (so the SIMD rotation kernels can work on them in place, they live in the
+ * kernels' WebAssembly memory when that is available, else in an ordinary buffer), the packed
+ * rotations of a sweep, and the aggressive-early-deflation window (about 10·w² + 4·w·n doubles
+ * for the largest window w).
  */
 export class QrScratch {
+  /** n×n working matrix for H (and the balanced A and T before/after it). */
+  readonly h: Float64Array;
+  /** n×n matrix for Q and the Schur vectors. */
+  readonly z: Float64Array;
   /** Largest deflation window for this order. */
   readonly nwMax: number;
   /** (w+1)×(w+1): the window with a leading row/column for the spike. */
@@ -93,21 +110,57 @@ export class QrScratch {
   readonly wv: Float64Array;
   /** Shifts for the following sweeps. */
   readonly shifts: Float64Array;
-  /** w×n: product slab for the update of the rows right of the window, and row copies. */
+  /** n×w: copies of the rows/columns next to the window, and their products with U. */
   readonly slab: Float64Array;
+  readonly slab2: Float64Array;
+  /** w×w: the window's transformation U and Uᴴ, contiguous for the matrix products. */
+  readonly u: Float64Array;
+  readonly uh: Float64Array;
+  /** Rotations of one sweep packed for the SIMD kernels: (c, c, Re s, Re s, Im s, −Im s). */
+  readonly rot: Float64Array;
+  /** The SIMD kernels bound to the memory holding h, z, t, v and rot; null without SIMD. */
+  readonly kernels: RotationKernels | null;
 
   constructor(n: number) {
     const w = aedWindow(n);
     const m = w + 1;
     this.nwMax = w;
-    this.t = new Float64Array(2 * m * m);
-    this.v = new Float64Array(2 * m * m);
+    const inMemory = 4 * n * n + 4 * m * m + 6 * Math.max(n, m);
+    const mod = getRotationModule();
+    let buffer: ArrayBuffer | null = null;
+    let kernels: RotationKernels | null = null;
+    if (mod !== null) {
+      try {
+        const mem = new WebAssembly.Memory({ initial: Math.max(1, Math.ceil((8 * inMemory) / 65536)) });
+        const inst = new WebAssembly.Instance(mod, { env: { mem } });
+        kernels = inst.exports as unknown as RotationKernels;
+        buffer = mem.buffer; // fixed size: the memory never grows, so these views stay valid
+      } catch {
+        kernels = null;
+      }
+    }
+    if (buffer === null) buffer = new ArrayBuffer(8 * inMemory);
+    let at = 0;
+    const take = (len: number): Float64Array => {
+      const view = new Float64Array(buffer, 8 * at, len);
+      at += len;
+      return view;
+    };
+    this.h = take(2 * n * n);
+    this.z = take(2 * n * n);
+    this.t = take(2 * m * m);
+    this.v = take(2 * m * m);
+    this.rot = take(6 * Math.max(n, m));
+    this.kernels = kernels;
     this.vs = new Float64Array(2 * m * m);
     this.tau = new Float64Array(2 * m);
     this.work = new Float64Array(2 * m);
     this.wv = new Float64Array(2 * m);
     this.shifts = new Float64Array(2 * m);
-    this.slab = new Float64Array(2 * Math.max(w * n, m));
+    this.slab = new Float64Array(2 * w * n);
+    this.slab2 = new Float64Array(2 * w * n);
+    this.u = new Float64Array(2 * w * w);
+    this.uh = new Float64Array(2 * w * w);
   }
 }
 
@@ -131,7 +184,8 @@ export class QrScratch {
  * @param w output eigenvalues, length ≥ 2n
  * @param rc scratch, length ≥ n (cosines of a sweep's rotations)
  * @param rsn scratch, length ≥ 2n (complex sines of a sweep's rotations)
- * @param scratch deflation-window scratch for order n; null disables early deflation
+ * @param scratch working storage for order n (early deflation, and the SIMD kernels when `h`
+ *   and `z` are its own `h` and `z`); null disables both
  * @returns 0 on success; otherwise i+1 where i is the row at which the iteration cap was hit
  *   (eigenvalues i+1..ihi had converged, the others in w are not set)
  * @example
@@ -150,10 +204,13 @@ export function zhseqr(
   rsn: Float64Array,
   scratch: QrScratch | null,
 ): number {
-  return qrIterate(n, ilo, ihi, h, wantt, z, ilo, ihi, w, rc, rsn, scratch);
+  return qrIterate(n, ilo, ihi, h, wantt, z, ilo, ihi, w, rc, rsn, scratch, scratch);
 }
 
-/** {@link zhseqr} with an explicit row range iloz..ihiz of Z to update. */
+/**
+ * {@link zhseqr} with an explicit row range iloz..ihiz of Z to update; `sc` enables early
+ * deflation, `mem` the SIMD kernels for whichever of h, z lie in its memory.
+ */
 function qrIterate(
   n: number,
   ilo: number,
@@ -167,8 +224,15 @@ function qrIterate(
   rc: Float64Array,
   rsn: Float64Array,
   sc: QrScratch | null,
+  mem: QrScratch | null,
 ): number {
   const rs = 2 * n;
+  // SIMD kernels apply to arrays inside their memory (byte offsets), −1 marks the TS loops.
+  const kern = mem !== null && mem.kernels !== null && linalgBackend() === 'wasm' ? mem.kernels : null;
+  const hOff = kern !== null && h.buffer === mem!.rot.buffer ? h.byteOffset : -1;
+  const zOff = kern !== null && z !== null && z.buffer === mem!.rot.buffer ? z.byteOffset : -1;
+  const rot = mem !== null ? mem.rot : null;
+  const rotOff = rot !== null ? rot.byteOffset : 0;
   for (let j = 0; j < n; j++) {
     if (j >= ilo && j <= ihi) continue;
     w[2 * j] = h[j * rs + 2 * j]!;
@@ -247,7 +311,7 @@ function qrIterate(
         const nd = aed(n, h, l, i, nw, wantt, z, iloz, ihiz, rc, rsn, sc, smlnum);
         if (nd >= 0) {
           qpos = 0;
-          nq = nw - nd;
+          nq = Math.ceil((nw - nd) * SHIFT_FRACTION);
           if (nd > 0) {
             kdefl = 0;
             kround = 0;
@@ -260,6 +324,7 @@ function qrIterate(
             // The window keeps failing to deflate: replace its shifts by ad-hoc ones built from
             // the trailing diagonal, as after 10 plain sweeps without progress.
             const sh = sc.shifts;
+            nq = Math.max(nq, 1);
             for (let q = 0; q < nq; q++) {
               const j = i - (q % nact);
               const pj = j * rs + 2 * j;
@@ -385,9 +450,22 @@ function qrIterate(
         rc[k] = c;
         rsn[2 * k] = sr;
         rsn[2 * k + 1] = si;
+        if (kern !== null) {
+          const o = 6 * k;
+          rot![o] = c;
+          rot![o + 1] = c;
+          rot![o + 2] = sr;
+          rot![o + 3] = sr;
+          rot![o + 4] = si;
+          rot![o + 5] = -si;
+        }
 
         // Left: rows k, k+1, columns k..i2 (unit stride): [x; y] ← [c·x + s·y; −s̄·x + c·y].
-        rotateRowPair(h, pk, pk + rs, k * rs + 2 * i2 + 2, c, sr, si);
+        if (hOff >= 0) {
+          kern!.rotPair(hOff + 8 * pk, hOff + 8 * (pk + rs), i2 - k + 1, rotOff + ROT_BYTES * k);
+        } else {
+          rotateRowPair(h, pk, pk + rs, k * rs + 2 * i2 + 2, c, sr, si);
+        }
         // Right, only rows k+1..min(k+2, i), whose columns k, k+1 feed the next rotation:
         // [x y] ← [c·x + s̄·y, −s·x + c·y]. Rows ≤ k are done after the sweep.
         const rEnd = k + 2 < i ? k + 2 : i;
@@ -396,8 +474,16 @@ function qrIterate(
 
       // --- Deferred right rotations: row r has had those of sweeps k < r already (rows k+1,
       // k+2 above); it still needs k = max(r, m)..i-1, in order.
-      for (let r = i1; r < i; r++) rotateRow(h, r * rs, r > m ? r : m, i - 1, rc, rsn);
-      if (z !== null) {
+      if (hOff >= 0) {
+        const rb = rotOff + ROT_BYTES * m;
+        if (i1 < m) kern!.rotRect(hOff + 8 * (i1 * rs + 2 * m), m - i1, 8 * rs, i - m, rb);
+        kern!.rotStair(hOff + 8 * (m * rs + 2 * m), i - m, 8 * rs, i - m, rb);
+      } else {
+        for (let r = i1; r < i; r++) rotateRow(h, r * rs, r > m ? r : m, i - 1, rc, rsn);
+      }
+      if (zOff >= 0) {
+        kern!.rotRect(zOff + 8 * (iloz * rs + 2 * m), ihiz - iloz + 1, 8 * rs, i - m, rotOff + ROT_BYTES * m);
+      } else if (z !== null) {
         for (let r = iloz; r <= ihiz; r++) rotateRow(z, r * rs, m, i - 1, rc, rsn);
       }
     }
@@ -463,7 +549,7 @@ function aed(
   }
   v.fill(0, 0, 2 * m * m);
   for (let j = 0; j < m; j++) v[j * ms + 2 * j] = 1;
-  if (qrIterate(m, 1, nw, t, true, v, 1, nw, sc.wv, rc, rsn, null) > 0) return -1;
+  if (qrIterate(m, 1, nw, t, true, v, 1, nw, sc.wv, rc, rsn, null, sc) > 0) return -1;
 
   // Deflation check from the bottom; an undeflatable eigenvalue is moved to the top so the
   // deflatable ones collect at the bottom.
@@ -527,64 +613,70 @@ function aed(
   h[pspk + 1] = t[ms + 1]!;
 
   // Apply U (= v without its border) to the rest: rows above the window from the right,
-  // columns right of the window from the left (only with the full Schur form), and Z.
-  const ltop = wantt ? 0 : ktop;
-  const slab = sc.slab;
-  for (let r = ltop; r < kwtop; r++) mulRowByU(h, r * rs + 2 * kwtop, v, m, nw, slab);
-  if (z !== null) {
-    for (let r = iloz; r <= ihiz; r++) mulRowByU(z, r * rs + 2 * kwtop, v, m, nw, slab);
+  // columns right of the window from the left (only with the full Schur form), and Z. These are
+  // the bulk of the window's cost and run as matrix products (the project's zgemm).
+  const u = sc.u;
+  const uh = sc.uh;
+  for (let r = 0; r < nw; r++) {
+    for (let c = 0; c < nw; c++) {
+      const p = (r + 1) * ms + 2 * (c + 1);
+      const ur = v[p]!;
+      const ui = v[p + 1]!;
+      u[2 * (r * nw + c)] = ur;
+      u[2 * (r * nw + c) + 1] = ui;
+      uh[2 * (c * nw + r)] = ur;
+      uh[2 * (c * nw + r) + 1] = -ui;
+    }
   }
+  const ltop = wantt ? 0 : ktop;
+  if (kwtop > ltop) multiplyColumnsByU(h, n, ltop, kwtop - 1, kwtop, nw, u, sc);
+  if (z !== null) multiplyColumnsByU(z, n, iloz, ihiz, kwtop, nw, u, sc);
   if (wantt && kbot + 1 < n) {
-    const nc2 = 2 * (n - kbot - 1);
+    const nc = n - kbot - 1;
+    const nc2 = 2 * nc;
     const c0 = 2 * (kbot + 1);
-    slab.fill(0, 0, nw * nc2);
+    const x = sc.slab;
+    const y = sc.slab2;
     for (let k = 0; k < nw; k++) {
       const hb = (kwtop + k) * rs + c0;
-      const ub = (k + 1) * ms + 2;
-      for (let j = 0; j < nw; j++) {
-        const fr = v[ub + 2 * j]!;
-        const fi = -v[ub + 2 * j + 1]!; // conj(U(k, j))
-        if (fr === 0 && fi === 0) continue;
-        const ob = j * nc2;
-        for (let q = 0; q < nc2; q += 2) {
-          const xr = h[hb + q]!;
-          const xi = h[hb + q + 1]!;
-          slab[ob + q] += fr * xr - fi * xi;
-          slab[ob + q + 1] += fr * xi + fi * xr;
-        }
-      }
+      for (let q = 0; q < nc2; q++) x[k * nc2 + q] = h[hb + q]!;
     }
-    for (let j = 0; j < nw; j++) {
-      const hb = (kwtop + j) * rs + c0;
-      const ob = j * nc2;
-      for (let q = 0; q < nc2; q++) h[hb + q] = slab[ob + q]!;
+    zgemmBase(nw, nc, nw, 1, 0, uh, x, 0, 0, y);
+    for (let k = 0; k < nw; k++) {
+      const hb = (kwtop + k) * rs + c0;
+      for (let q = 0; q < nc2; q++) h[hb + q] = y[k * nc2 + q]!;
     }
   }
   return nd;
 }
 
 /**
- * Row segment x (nw complex entries at `base` of `d`) ← x·U, where U is the window block of the
- * bordered (m×m) matrix `v`. `tmp` (≥ 2nw) holds a copy of x.
+ * Columns c0..c0+nw-1 of rows r0..r1 of the n×n row-major `d` ← themselves times U (nw×nw,
+ * contiguous), through the contiguous slabs of `sc`.
  */
-function mulRowByU(d: Float64Array, base: number, v: Float64Array, m: number, nw: number, tmp: Float64Array): void {
-  const ms = 2 * m;
+function multiplyColumnsByU(
+  d: Float64Array,
+  n: number,
+  r0: number,
+  r1: number,
+  c0: number,
+  nw: number,
+  u: Float64Array,
+  sc: QrScratch,
+): void {
+  const rs = 2 * n;
   const n2 = 2 * nw;
-  for (let q = 0; q < n2; q++) {
-    tmp[q] = d[base + q]!;
-    d[base + q] = 0;
+  const rows = r1 - r0 + 1;
+  const x = sc.slab;
+  const y = sc.slab2;
+  for (let r = 0; r < rows; r++) {
+    const b = (r0 + r) * rs + 2 * c0;
+    for (let q = 0; q < n2; q++) x[r * n2 + q] = d[b + q]!;
   }
-  for (let k = 0; k < nw; k++) {
-    const xr = tmp[2 * k]!;
-    const xi = tmp[2 * k + 1]!;
-    if (xr === 0 && xi === 0) continue;
-    const ub = (k + 1) * ms + 2;
-    for (let q = 0; q < n2; q += 2) {
-      const ur = v[ub + q]!;
-      const ui = v[ub + q + 1]!;
-      d[base + q] += xr * ur - xi * ui;
-      d[base + q + 1] += xr * ui + xi * ur;
-    }
+  zgemmBase(rows, nw, nw, 1, 0, x, u, 0, 0, y);
+  for (let r = 0; r < rows; r++) {
+    const b = (r0 + r) * rs + 2 * c0;
+    for (let q = 0; q < n2; q++) d[b + q] = y[r * n2 + q]!;
   }
 }
 
@@ -753,4 +845,244 @@ function cdiv(ar: number, ai: number, br: number, bi: number): void {
     OUT[0] = (ar * t + ai) / d;
     OUT[1] = (ai * t - ar) / d;
   }
+}
+
+// ---- SIMD rotation kernels -----------------------------------------------------------------
+//
+// The sweeps of the QR iteration spend almost all their time applying plane rotations to pairs
+// of complex entries, and plain JavaScript caps that at about 20 scalar flops per pair. A complex
+// number fits one 128-bit WebAssembly SIMD vector (lane 0 = re, lane 1 = im), and with the
+// rotation pre-packed as C = (c, c), SR = (Re s, Re s), SN = (Im s, −Im s) both updates need
+// three vector multiplies, two adds and one lane swap:
+//   left  (rows):    x' = C·x + SR·y − SN·swap(y),   y' = C·y − SR·x − SN·swap(x)
+//   right (columns): x' = C·x + SR·y + SN·swap(y),   y' = C·y − SR·x + SN·swap(x)
+// (from s·y = SR·y − SN·swap(y) and s̄·y = SR·y + SN·swap(y)). The module is tiny, so it is
+// assembled here from the instruction list below rather than shipped as a binary; the matrices
+// it works on (H, Z and the deflation window) are allocated inside its memory by QrScratch, so
+// no data is copied. It is used when the project's WebAssembly backend is active
+// (wasm/runtime.ts: FURROW_NO_WASM=1 or setLinalgBackend('ts') select the TypeScript loops).
+
+/** Bytes per packed rotation in the kernels' rotation buffer: C, SR, SN. */
+const ROT_BYTES = 48;
+
+interface RotationKernels {
+  /** Left rotation of two rows: cnt entries from byte offsets p and q, rotation at byte r. */
+  rotPair(p: number, q: number, cnt: number, r: number): void;
+  /** Right rotations r, r+1, … (cnt of them) swept along nrows rows, from byte p, row stride. */
+  rotRect(p: number, nrows: number, stride: number, cnt: number, r: number): void;
+  /** As rotRect, but row j starts one entry further right, one rotation later, with cnt − j. */
+  rotStair(p: number, nrows: number, stride: number, cnt: number, r: number): void;
+}
+
+/** Unsigned LEB128. */
+function uleb(n: number, out: number[]): void {
+  do {
+    let b = n & 0x7f;
+    n >>>= 7;
+    if (n !== 0) b |= 0x80;
+    out.push(b);
+  } while (n !== 0);
+}
+
+function wasmVec(items: number[][]): number[] {
+  const o: number[] = [];
+  uleb(items.length, o);
+  for (const it of items) o.push(...it);
+  return o;
+}
+
+function wasmName(s: string): number[] {
+  const o: number[] = [];
+  uleb(s.length, o);
+  for (let k = 0; k < s.length; k++) o.push(s.charCodeAt(k));
+  return o;
+}
+
+/** Encode the rotation module (binary format of the WebAssembly core spec 2.0 with SIMD). */
+function rotationModuleBytes(): Uint8Array<ArrayBuffer> {
+  // instructions
+  const get = (i: number): number[] => [0x20, i];
+  const set = (i: number): number[] => [0x21, i];
+  const i32 = (n: number): number[] => {
+    // small non-negative constants only (signed LEB128)
+    const o = [0x41];
+    let v = n;
+    for (;;) {
+      const b = v & 0x7f;
+      v >>= 7;
+      if (v === 0 && (b & 0x40) === 0) {
+        o.push(b);
+        return o;
+      }
+      o.push(b | 0x80);
+    }
+  };
+  const ADD = [0x6a];
+  const SUB = [0x6b];
+  const MUL = [0x6c];
+  const SHL = [0x74];
+  const EQZ = [0x45];
+  const LT_S = [0x48];
+  const GE_U = [0x4f];
+  const BLOCK = [0x02, 0x40];
+  const LOOP = [0x03, 0x40];
+  const END = [0x0b];
+  const brIf = (d: number): number[] => [0x0d, d];
+  const br = (d: number): number[] => [0x0c, d];
+  const call = (f: number): number[] => [0x10, f];
+  const load = (off: number): number[] => {
+    const o = [0xfd, 0x00, 4];
+    uleb(off, o);
+    return o;
+  };
+  const store = (off: number): number[] => {
+    const o = [0xfd, 0x0b, 4];
+    uleb(off, o);
+    return o;
+  };
+  const FADD = [0xfd, 0xf0, 0x01];
+  const FSUB = [0xfd, 0xf1, 0x01];
+  const FMUL = [0xfd, 0xf2, 0x01];
+  const SWAP = [0xfd, 0x0d, 8, 9, 10, 11, 12, 13, 14, 15, 0, 1, 2, 3, 4, 5, 6, 7]; // i8x16.shuffle
+  const cat = (...parts: number[][]): number[] => ([] as number[]).concat(...parts);
+  const I32T = 0x7f;
+  const V128T = 0x7b;
+
+  // f0 row1(p, cnt, r): right rotations along one row; x is carried in a register.
+  // locals: 3 x, 4 y, 5 c, 6 sr, 7 sn (v128); 8 end (i32)
+  const row1 = cat(
+    get(0), get(1), i32(16), MUL, ADD, set(8),
+    get(0), load(0), set(3),
+    BLOCK, LOOP,
+    get(0), get(8), GE_U, brIf(1),
+    get(2), load(0), set(5), get(2), load(16), set(6), get(2), load(32), set(7),
+    get(0), load(16), set(4),
+    get(0), get(5), get(3), FMUL, get(6), get(4), FMUL, FADD, get(7), get(4), get(4), SWAP, FMUL, FADD, store(0),
+    get(5), get(4), FMUL, get(6), get(3), FMUL, FSUB, get(7), get(3), get(3), SWAP, FMUL, FADD, set(3),
+    get(0), i32(16), ADD, set(0),
+    get(2), i32(ROT_BYTES), ADD, set(2),
+    br(0), END, END,
+    get(0), get(3), store(0),
+    END,
+  );
+  // f1 row2(p, cnt, r, stride): the same on rows p and p+stride, two independent chains.
+  // locals: 4 x, 5 y, 6 c, 7 sr, 8 sn, 9 u, 10 w (v128); 11 end, 12 q (i32)
+  const row2 = cat(
+    get(0), get(1), i32(16), MUL, ADD, set(11),
+    get(0), get(3), ADD, set(12),
+    get(0), load(0), set(4),
+    get(12), load(0), set(9),
+    BLOCK, LOOP,
+    get(0), get(11), GE_U, brIf(1),
+    get(2), load(0), set(6), get(2), load(16), set(7), get(2), load(32), set(8),
+    get(0), load(16), set(5),
+    get(12), load(16), set(10),
+    get(0), get(6), get(4), FMUL, get(7), get(5), FMUL, FADD, get(8), get(5), get(5), SWAP, FMUL, FADD, store(0),
+    get(12), get(6), get(9), FMUL, get(7), get(10), FMUL, FADD, get(8), get(10), get(10), SWAP, FMUL, FADD, store(0),
+    get(6), get(5), FMUL, get(7), get(4), FMUL, FSUB, get(8), get(4), get(4), SWAP, FMUL, FADD, set(4),
+    get(6), get(10), FMUL, get(7), get(9), FMUL, FSUB, get(8), get(9), get(9), SWAP, FMUL, FADD, set(9),
+    get(0), i32(16), ADD, set(0),
+    get(12), i32(16), ADD, set(12),
+    get(2), i32(ROT_BYTES), ADD, set(2),
+    br(0), END, END,
+    get(0), get(4), store(0),
+    get(12), get(9), store(0),
+    END,
+  );
+  // f2 rotPair(p, q, cnt, r): left rotation of rows p and q.
+  // locals: 4 x, 5 y, 6 c, 7 sr, 8 sn (v128); 9 end (i32)
+  const rotPair = cat(
+    get(0), get(2), i32(16), MUL, ADD, set(9),
+    get(3), load(0), set(6), get(3), load(16), set(7), get(3), load(32), set(8),
+    BLOCK, LOOP,
+    get(0), get(9), GE_U, brIf(1),
+    get(0), load(0), set(4),
+    get(1), load(0), set(5),
+    get(0), get(6), get(4), FMUL, get(7), get(5), FMUL, FADD, get(8), get(5), get(5), SWAP, FMUL, FSUB, store(0),
+    get(1), get(6), get(5), FMUL, get(7), get(4), FMUL, FSUB, get(8), get(4), get(4), SWAP, FMUL, FSUB, store(0),
+    get(0), i32(16), ADD, set(0),
+    get(1), i32(16), ADD, set(1),
+    br(0), END, END,
+    END,
+  );
+  // f3 rotRect(p, nrows, stride, cnt, r): rows in pairs through row2, a last odd row through row1.
+  const rotRect = cat(
+    BLOCK, LOOP,
+    get(1), i32(2), LT_S, brIf(1),
+    get(0), get(3), get(4), get(2), call(1),
+    get(0), get(2), i32(1), SHL, ADD, set(0),
+    get(1), i32(2), SUB, set(1),
+    br(0), END, END,
+    BLOCK, get(1), EQZ, brIf(0),
+    get(0), get(3), get(4), call(0),
+    END,
+    END,
+  );
+  // f4 rotStair(p, nrows, stride, cnt, r): row j from p + j·(stride + 16), cnt − j rotations
+  // starting at r + j·ROT_BYTES.
+  const rotStair = cat(
+    BLOCK, LOOP,
+    get(1), i32(1), LT_S, brIf(1),
+    get(0), get(3), get(4), call(0),
+    get(0), get(2), i32(16), ADD, ADD, set(0),
+    get(3), i32(1), SUB, set(3),
+    get(4), i32(ROT_BYTES), ADD, set(4),
+    get(1), i32(1), SUB, set(1),
+    br(0), END, END,
+    END,
+  );
+  const body = (locals: number[][], code: number[]): number[] => {
+    const inner = cat(wasmVec(locals), code);
+    const o: number[] = [];
+    uleb(inner.length, o);
+    return cat(o, inner);
+  };
+  const section = (id: number, content: number[]): number[] => {
+    const o = [id];
+    uleb(content.length, o);
+    return cat(o, content);
+  };
+  const fnType = (nParams: number): number[] => cat([0x60], wasmVec(new Array<number[]>(nParams).fill([I32T])), [0x00]);
+  const bytes = cat(
+    [0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00],
+    section(1, wasmVec([fnType(3), fnType(4), fnType(5)])),
+    section(2, wasmVec([cat(wasmName('env'), wasmName('mem'), [0x02, 0x00, 0x01])])),
+    section(3, wasmVec([[0], [1], [1], [2], [2]])),
+    section(
+      7,
+      wasmVec([
+        cat(wasmName('rotPair'), [0x00, 2]),
+        cat(wasmName('rotRect'), [0x00, 3]),
+        cat(wasmName('rotStair'), [0x00, 4]),
+      ]),
+    ),
+    section(
+      10,
+      wasmVec([
+        body([[5, V128T], [1, I32T]], row1),
+        body([[7, V128T], [2, I32T]], row2),
+        body([[5, V128T], [1, I32T]], rotPair),
+        body([], rotRect),
+        body([], rotStair),
+      ]),
+    ),
+  );
+  const out = new Uint8Array(new ArrayBuffer(bytes.length));
+  out.set(bytes);
+  return out;
+}
+
+let rotationModule: WebAssembly.Module | null | undefined;
+
+/** The compiled rotation module, or null where WebAssembly SIMD is unavailable. */
+function getRotationModule(): WebAssembly.Module | null {
+  if (rotationModule === undefined) {
+    try {
+      const bytes = rotationModuleBytes();
+      rotationModule = typeof WebAssembly === 'object' && WebAssembly.validate(bytes) ? new WebAssembly.Module(bytes) : null;
+    } catch {
+      rotationModule = null;
+    }
+  }
+  return rotationModule;
 }
