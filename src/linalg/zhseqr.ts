@@ -709,17 +709,20 @@ function swapDiagonal(t: Float64Array, v: Float64Array, m: number, k: number): v
 
 /**
  * Plane rotation G = [c s; −s̄ c] (c real, s complex) with G·[f; g] = [r; 0] and
- * r = (f/|f|)·√(|f|² + |g|²); results in ROT. Inputs are scaled by their largest component so
- * nothing overflows or underflows.
+ * r = (f/|f|)·√(|f|² + |g|²); results in ROT (c, Re s, Im s, Re r, Im r).
+ *
+ * |f| and |g| are each computed after scaling by their own largest component, and the phases
+ * f/|f|, g/|g| from them, so c² + |s|² = 1 to rounding even when |f|/|g| is far below the square
+ * root of the underflow threshold (a single common scale would square such an f into a subnormal
+ * and lose the phase, which the property tests caught).
  */
 function givens(fr: number, fi: number, gr: number, gi: number): void {
   const afr = Math.abs(fr);
   const afi = Math.abs(fi);
   const agr = Math.abs(gr);
   const agi = Math.abs(gi);
-  let sc = afr > afi ? afr : afi;
+  const fm = afr > afi ? afr : afi;
   const gm = agr > agi ? agr : agi;
-  if (gm > sc) sc = gm;
   if (gm === 0) {
     ROT[0] = 1;
     ROT[1] = 0;
@@ -728,30 +731,31 @@ function givens(fr: number, fi: number, gr: number, gi: number): void {
     ROT[4] = fi;
     return;
   }
-  const fsr = fr / sc;
-  const fsi = fi / sc;
-  const gsr = gr / sc;
-  const gsi = gi / sc;
-  const fa2 = fsr * fsr + fsi * fsi;
-  const ga2 = gsr * gsr + gsi * gsi;
-  if (fa2 === 0) {
-    const ga = Math.sqrt(ga2);
+  let t = afr > afi ? afi / afr : afr / afi;
+  const tg = agr > agi ? agi / agr : agr / agi;
+  const ga = gm * Math.sqrt(1 + tg * tg);
+  if (fm === 0) {
     ROT[0] = 0;
-    ROT[1] = gsr / ga;
-    ROT[2] = -gsi / ga;
-    ROT[3] = ga * sc;
+    ROT[1] = gr / ga;
+    ROT[2] = -gi / ga;
+    ROT[3] = ga;
     ROT[4] = 0;
     return;
   }
-  const fa = Math.sqrt(fa2);
-  const rho = Math.sqrt(fa2 + ga2);
-  const phr = fsr / fa;
-  const phi = fsi / fa;
+  const fa = fm * Math.sqrt(1 + t * t);
+  const big = fa > ga ? fa : ga;
+  t = (fa > ga ? ga : fa) / big;
+  const rho = big * Math.sqrt(1 + t * t);
+  const phr = fr / fa; // f/|f|
+  const phi = fi / fa;
+  const ugr = gr / ga; // g/|g|
+  const ugi = gi / ga;
+  const sg = ga / rho;
   ROT[0] = fa / rho;
-  ROT[1] = (phr * gsr + phi * gsi) / rho;
-  ROT[2] = (phi * gsr - phr * gsi) / rho;
-  ROT[3] = phr * rho * sc;
-  ROT[4] = phi * rho * sc;
+  ROT[1] = (phr * ugr + phi * ugi) * sg;
+  ROT[2] = (phi * ugr - phr * ugi) * sg;
+  ROT[3] = phr * rho;
+  ROT[4] = phi * rho;
 }
 
 /** Left rotation of two rows from positions p and q (q − p = row stride) up to pend (exclusive of p's row). */
