@@ -21,7 +21,9 @@ const Name = z
   .string()
   .min(1, 'name must not be empty')
   .refine((s) => s.trim() === s && !s.includes(':'), 'name must have no surrounding spaces and no ":" (reserved for the :o / :e axes of uniaxial crystals)');
-const Range = z.tuple([z.number().nonnegative(), z.number().positive()]);
+const Range = z.tuple([z.number().nonnegative(), z.number().positive()], {
+  error: (issue) => (issue.input === undefined ? 'required: the valid range [min, max] in µm' : 'expected [min, max] in µm'),
+});
 const Num = z.number();
 const common = {
   name: Name,
