@@ -46,12 +46,20 @@ export function requireLengthUnit(text: string, material: string | undefined): L
   return u;
 }
 
-/** A value in the unit converted to µm (exact for µm and mm, correctly rounded for nm and Å). */
+/**
+ * A value in the unit converted to µm (exact for µm and mm, correctly rounded for nm and Å).
+ * @example
+ * toUm(632.8, parseLengthUnit('nm')!); // 0.6328
+ */
 export function toUm(value: number, unit: LengthUnit): number {
   return (value * unit.mul) / unit.div;
 }
 
-/** A value in µm converted to the unit. */
+/**
+ * A value in µm converted to the unit.
+ * @example
+ * fromUm(0.6328, parseLengthUnit('nm')!); // 632.8
+ */
 export function fromUm(valueUm: number, unit: LengthUnit): number {
   return (valueUm * unit.div) / unit.mul;
 }

@@ -67,7 +67,11 @@ export interface Evaluation {
 /** Relative slack on range ends, so that "400 nm" converted to µm is not refused by round-off. */
 export const RANGE_TOLERANCE = 1e-9;
 
-/** True when λ (µm) lies in the material's valid range (ends included, with {@link RANGE_TOLERANCE}). */
+/**
+ * True when λ (µm) lies in the material's valid range (ends included, with {@link RANGE_TOLERANCE}).
+ * @example
+ * inValidRange({ validRangeUm: [0.21, 3.71] }, 0.21); // true
+ */
 export function inValidRange(material: Pick<Material, 'validRangeUm'>, wavelengthUm: number): boolean {
   const [lo, hi] = material.validRangeUm;
   return wavelengthUm >= lo * (1 - RANGE_TOLERANCE) && wavelengthUm <= hi * (1 + RANGE_TOLERANCE);
