@@ -10,6 +10,10 @@
  * 5. undo balancing, then scale every eigenvector to unit 2-norm with its largest-modulus
  *    component real and positive (a fixed phase makes results reproducible across calls).
  *
+ * The matrix products (blocked reduction, formation of Q, back-transform) go through the
+ * project's zgemm and the QR sweeps through SIMD rotation kernels when the WebAssembly backend
+ * is active (wasm/runtime.ts); the TypeScript paths give the same results to rounding.
+ *
  * @module
  */
 import { allFinite, cmatrix, type CMatrix } from './cmatrix.ts';
@@ -28,9 +32,14 @@ export interface ZgeevResult {
 }
 
 export interface ZgeevOptions {
-  /** Compute right eigenvectors (default true). Eigenvalues alone cost about a third. */
+  /** Compute right eigenvectors (default true). Eigenvalues alone take roughly 55–65% of the time. */
   readonly vectors?: boolean;
-  /** Balance (permute and scale) before the reduction (default true). */
+  /**
+   * Balance (permute and scale) before the reduction (default true). It makes eigenvalues of
+   * badly scaled matrices accurate. For matrices whose entries span hundreds of orders of
+   * magnitude it can choose scalings near 2^±500 that magnify the error of individual
+   * eigenvectors (LAPACK's zgeev behaves the same); pass false there.
+   */
   readonly balance?: boolean;
 }
 
@@ -141,8 +150,8 @@ export function zgeev(a: Readonly<CMatrix>, options: ZgeevOptions = {}, workspac
       'zgeev',
       'no-convergence',
       n,
-      `QR iteration did not converge within ${cap} sweeps (n = ${n}); ` +
-        `${n - info} of ${n} eigenvalues had converged`,
+      `QR iteration did not converge within ${cap} sweeps (30 per eigenvalue of the ` +
+        `${ihi - ilo + 1}×${ihi - ilo + 1} active block); it stalled at row ${info - 1}`,
     );
   }
   if (!allFinite(values)) {

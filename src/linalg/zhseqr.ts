@@ -16,14 +16,16 @@
  * - for large active blocks, aggressive early deflation (Braman, Byers & Mathias, "The multishift
  *   QR algorithm. Part II: Aggressive early deflation", SIAM J. Matrix Anal. Appl. 23, 2002; the
  *   LAPACK routines zlaqr0/zlaqr3): the trailing window is reduced to Schur form, eigenvalues
- *   whose "spike" coupling to the rest is negligible are deflated at once, and the others are
- *   (the third nearest the bottom) are used as the shifts of the following sweeps. On random
- *   matrices of order 200 this saves about a quarter of the rotation work, which dominates the
- *   cost;
+ *   whose "spike" coupling to the rest is negligible are deflated at once, and a third of the
+ *   others (those nearest the bottom) serve as the shifts of the following sweeps. Measured on
+ *   random matrices (scripts/bench-zgeev.ts): about 8% less time at order 200, 25% at 400;
  * - an iteration cap of 30 sweeps per eigenvalue of the active block (total), after which the
  *   kernel reports failure instead of looping forever.
  *
- * Performance. Storage is interleaved (re, im), row-major (see {@link CMatrix}), so the left
+ * Performance. Almost all the time goes into applying plane rotations. They run in small
+ * WebAssembly SIMD kernels (one complex entry per 128-bit vector; see the end of this file) on H
+ * and Z in place when the project's WebAssembly backend is active, else in TypeScript loops.
+ * Storage is interleaved (re, im), row-major (see {@link CMatrix}), so the left
  * application of a rotation (rows k, k+1) is unit-stride but the right application (columns
  * k, k+1) strides by a whole row. Left and right multiplications commute, so the right
  * rotations of a sweep are only applied at once where the next rotation is computed from them
@@ -57,13 +59,16 @@ const KEXSH = 10;
 const KEXAED = 4;
 /** Size of the exceptional shift relative to the subdiagonal entry it is built from. */
 const DAT1 = 0.75;
-/** Active blocks at least this large use aggressive early deflation (below, it does not pay). */
-export const AED_MIN_ORDER = 60;
+/**
+ * Active blocks at least this large use aggressive early deflation. Below it the window's own
+ * Schur form and products cost more than the sweeps they save (measured at orders 100–200).
+ */
+export const AED_MIN_ORDER = 120;
 /**
  * Fraction of a window's undeflated eigenvalues used as shifts before the next window is tried:
- * those that were nearest the bottom. Measured on random matrices of order 100–200 (counting
- * rotations and products, scripts/bench-zgeev.ts for time), a third gave the least work; using
- * all of them as separate single-shift sweeps spends many sweeps on still-poor shifts.
+ * those that were nearest the bottom. Measured on random matrices of order 100–400, a third
+ * gave the least work; using all of them as separate single-shift sweeps spends many sweeps on
+ * still-poor shifts.
  */
 const SHIFT_FRACTION = 1 / 3;
 /** Percentage of the window that must deflate for the next window to be tried before sweeping. */
@@ -71,11 +76,12 @@ const NIBBLE = 14;
 
 /**
  * Deflation-window size for an active block of order nh (0: no early deflation). Grows like
- * nh/log₂(nh), the rule of thumb of the LAPACK tuning routine iparmq.
+ * nh/(2·log₂ nh): half the rule of thumb of the LAPACK tuning routine iparmq, because with the
+ * SIMD sweeps the window's own Schur form weighs relatively more (measured at orders 100–400).
  */
 export function aedWindow(nh: number): number {
   if (nh < AED_MIN_ORDER) return 0;
-  const w = Math.round(nh / Math.round(Math.log2(nh)));
+  const w = Math.round(nh / (2 * Math.round(Math.log2(nh))));
   return Math.min(nh - 1, Math.max(10, w + (w & 1)));
 }
 
