@@ -1,0 +1,20 @@
+/**
+ * The error every structure builder raises on bad input: it names the parameter, what was
+ * expected and what was found, e.g.
+ * "sawtooth.blazeDeg: expected an angle in (0°, 90°), found 95".
+ */
+export class StructureError extends Error {
+  override readonly name = 'StructureError';
+  /**
+   * @param field parameter path, e.g. `trapezoid.sidewallDeg` or `layers[2].segments[0].from`
+   * @param expected what an admissible value looks like
+   * @param found the offending value as text
+   */
+  constructor(
+    readonly field: string,
+    readonly expected: string,
+    readonly found: string,
+  ) {
+    super(`${field}: expected ${expected}, found ${found}`);
+  }
+}
