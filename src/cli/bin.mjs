@@ -3,5 +3,10 @@
 import { register } from 'tsx/esm/api';
 
 register();
+// `furrow … | head` closes the pipe early: that is the reader's choice, not an error
+process.stdout.on('error', (e) => {
+  if (e.code === 'EPIPE') process.exit(0);
+  throw e;
+});
 const { main } = await import('./main.ts');
 process.exitCode = await main(process.argv);

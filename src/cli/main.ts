@@ -9,6 +9,9 @@ import { SolverError, solve, SOLVER_VERSION } from '../solver/index.ts';
 import { describeProblem, orderTable } from './format.ts';
 import { ordersReport } from './orders.ts';
 import { demoDesign } from './demo.ts';
+import { MaterialError, MaterialLibrary } from '../materials/index.ts';
+import { materialsList, materialsShow } from './materials.ts';
+import { lengthUm } from '../design/index.ts';
 
 /** A user-facing failure: message and exit code. */
 export class CliFailure extends Error {
@@ -74,6 +77,29 @@ export function buildProgram(out: (s: string) => void): Command {
     .action((design: string) => {
       for (const l of ordersReport(loadDesign(design))) out(l);
     });
+  const materials = program.command('materials').description('the material library: built-in dispersion data with sources and valid ranges');
+  materials
+    .command('list', { isDefault: true })
+    .description('list every material with its model, valid range and source')
+    .action(() => {
+      for (const l of materialsList(new MaterialLibrary())) out(l);
+    });
+  materials
+    .command('show')
+    .description("one material's n and k over a wavelength range")
+    .argument('<name>', 'material name (see furrow materials)')
+    .option('--from <length>', 'first wavelength, with unit', '400 nm')
+    .option('--to <length>', 'last wavelength, with unit', '800 nm')
+    .option('--steps <n>', 'number of intervals', '8')
+    .option('--allow-extrapolation', 'evaluate outside the valid range, with a warning')
+    .action((name: string, o: { from: string; to: string; steps: string; allowExtrapolation?: boolean }) => {
+      const steps = Number(o.steps);
+      if (!(Number.isInteger(steps) && steps >= 1 && steps <= 10000)) throw new CliFailure(`--steps: expected an integer 1…10000, found "${o.steps}"`);
+      const lines = materialsShow(new MaterialLibrary(), name, lengthUm(o.from, '--from'), lengthUm(o.to, '--to'), steps, {
+        allowExtrapolation: !!o.allowExtrapolation,
+      });
+      for (const l of lines) out(l);
+    });
   program
     .command('demo')
     .description('solve the built-in example (a gold lamellar grating) and show the result')
@@ -97,8 +123,12 @@ export async function main(argv: string[], out: (s: string) => void = (s) => con
       out(`furrow: ${e.message}`);
       return e.exitCode;
     }
+    if (e instanceof MaterialError) {
+      out(`furrow: ${e.message}`);
+      return 2;
+    }
     if (e instanceof InputError) {
-      out(`furrow: invalid design — ${e.message}`);
+      out(e.path.startsWith('--') ? `furrow: ${e.message}` : `furrow: invalid design — ${e.message}`);
       return 2;
     }
     if (e instanceof SolverError) {

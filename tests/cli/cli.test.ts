@@ -70,3 +70,23 @@ describe('furrow CLI', () => {
     expect(r.text).toMatch(/--orders: expected an integer/);
   });
 });
+
+describe('furrow materials', () => {
+  it('lists the library with sources (Malitson 1965 for fused silica)', async () => {
+    const r = await run('materials');
+    expect(r.code).toBe(0);
+    expect(r.text).toMatch(/fused-silica\s+Sellmeier\s+0\.21–3\.71\s+I\. H\. Malitson, J\. Opt\. Soc\. Am\. 55, 1205 \(1965\)/);
+  });
+  it('shows n, k over a range: Au (Rakić 1998 Lorentz–Drude) at 632.8 nm is 0.31228 + 3.14605i (computed from the published fit)', async () => {
+    const r = await run('materials', 'show', 'Au-LD', '--from', '632.8nm', '--to', '632.8nm', '--steps', '1');
+    expect(r.code).toBe(0);
+    expect(r.text).toMatch(/632\.800\s+0\.632800\s+0\.31228\d*\s+3\.14605/);
+  });
+  it('refuses a wavelength outside the valid range and an unknown name, with exit code 2', async () => {
+    const a = await run('materials', 'show', 'Au-LD', '--from', '20um', '--to', '30um');
+    expect(a.code).toBe(2);
+    expect(a.text).toMatch(/outside its valid range/);
+    const b = await run('materials', 'show', 'gold');
+    expect(b.text).toMatch(/did you mean 'Au-LD'/);
+  });
+});
