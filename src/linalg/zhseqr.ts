@@ -1029,16 +1029,22 @@ function rotationModuleBytes(): Uint8Array<ArrayBuffer> {
     END,
   );
   // f4 rotStair(p, nrows, stride, cnt, r): row j from p + j·(stride + 16), cnt − j rotations
-  // starting at r + j·ROT_BYTES.
+  // starting at r + j·ROT_BYTES. Rows go in pairs: the first rotation of row j alone (row1 with
+  // one rotation), then rows j and j+1 together through row2 from the next column on, which
+  // keeps two independent chains in flight instead of one.
   const rotStair = cat(
     BLOCK, LOOP,
-    get(1), i32(1), LT_S, brIf(1),
-    get(0), get(3), get(4), call(0),
-    get(0), get(2), i32(16), ADD, ADD, set(0),
-    get(3), i32(1), SUB, set(3),
-    get(4), i32(ROT_BYTES), ADD, set(4),
-    get(1), i32(1), SUB, set(1),
+    get(1), i32(2), LT_S, brIf(1),
+    get(0), i32(1), get(4), call(0),
+    get(0), i32(16), ADD, get(3), i32(1), SUB, get(4), i32(ROT_BYTES), ADD, get(2), call(1),
+    get(0), get(2), i32(16), ADD, i32(1), SHL, ADD, set(0),
+    get(3), i32(2), SUB, set(3),
+    get(4), i32(2 * ROT_BYTES), ADD, set(4),
+    get(1), i32(2), SUB, set(1),
     br(0), END, END,
+    BLOCK, get(1), EQZ, brIf(0),
+    get(0), get(3), get(4), call(0),
+    END,
     END,
   );
   const body = (locals: number[][], code: number[]): number[] => {
