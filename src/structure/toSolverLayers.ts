@@ -7,7 +7,7 @@
  *   (the Poisson-kernel series; geometry of the generating function), so its k-th coefficient
  *   is ρ^|k|·e^{−ikφ}/s. a and b may be complex; of the two roots ±s exactly one gives |ρ| < 1
  *   (the two ρ multiply to 1), and that one is taken. |ρ| = 1 would mean ε vanishes somewhere.
- * Both are truncated at k = −K…K with K = `harmonics`. The solver builds Toeplitz matrices from
+ * Both are truncated at k = −K…K with K = `harmonics` (≥ 0). The solver builds Toeplitz matrices from
  * differences of order indices, so for orders −M…M it needs k = −2M…2M: pass harmonics = 2M.
  *
  * Adjacent slices that resolve to identical profiles are merged into one thicker layer.
@@ -20,11 +20,12 @@ import { fail, finite, integerAtLeast, material as materialName, nonNegativeLeng
  * Resolve material names and emit the solver's layers.
  * @param layers geometry, top (cover side) first
  * @param indexOf complex index n + iκ of a material at the wavelength of interest
- * @param harmonics K ≥ 1: 'cosine' slices get coefficients k = −K…K (use 2M for orders −M…M)
+ * @param harmonics K ≥ 0: 'cosine' slices get coefficients k = −K…K (use 2M for orders −M…M;
+ *   K = 0 keeps only the mean, which is all a single retained order sees)
  * @returns solver layers, top first, with identical neighbours merged
  * @throws {StructureError} on a malformed layer (segments that do not tile [0, 1) in order, a
- *   negative thickness, an unknown kind), a non-finite index, harmonics < 1, or a cosine slice
- *   whose permittivity vanishes for some x
+ *   negative thickness, an unknown kind), a non-finite index, harmonics < 0 or not an
+ *   integer, or a cosine slice whose permittivity vanishes for some x
  * @example
  * toSolverLayers([{ kind: 'uniform', thicknessUm: 0.1, material: 'MgF2' }], () => ({ re: 1.38, im: 0 }), 20);
  * // → [{ thicknessUm: 0.1, profile: { kind: 'uniform', index: { re: 1.38, im: 0 } } }]
@@ -32,7 +33,7 @@ import { fail, finite, integerAtLeast, material as materialName, nonNegativeLeng
 export function toSolverLayers(layers: ReadonlyArray<GeometryLayer>, indexOf: (material: string) => Complex, harmonics: number): Layer[] {
   if (!Array.isArray(layers)) fail('layers', 'a list of geometry layers', layers);
   if (typeof indexOf !== 'function') fail('indexOf', 'a function from material name to complex index', indexOf);
-  const K = integerAtLeast('harmonics', harmonics, 1);
+  const K = integerAtLeast('harmonics', harmonics, 0);
   const cache = new Map<string, Complex>();
   const resolve = (field: string, name: unknown): Complex => {
     const m = materialName(field, name);
