@@ -1,6 +1,14 @@
 /**
  * Timing of zgeev (not a test): best-of-N wall time per call at the sizes the solver uses, with a
- * reused workspace, plus a per-phase breakdown. Run: `npx tsx scripts/bench-zgeev.ts [sizes…]`.
+ * reused workspace, mean CPU time, and a per-phase breakdown.
+ * Run: `npx tsx scripts/bench-zgeev.ts [sizes…]` (FURROW_NO_WASM=1 for the TypeScript paths).
+ *
+ * For a native reference on the same machine, single-threaded LAPACK through numpy:
+ *   env -u OPENBLAS_CORETYPE -u OPENBLAS_L2_SIZE OMP_NUM_THREADS=1 OPENBLAS_NUM_THREADS=1 \
+ *     python3 -c "import numpy as np, time; a = np.random.rand(201, 201) + 1j*np.random.rand(201, 201); \
+ *     np.linalg.eig(a); t = time.perf_counter(); [np.linalg.eig(a) for _ in range(20)]; \
+ *     print((time.perf_counter() - t) / 20 * 1e3, 'ms')"
+ * Other processes on a shared machine inflate both; compare runs taken back to back.
  */
 import { cmatrix, type CMatrix } from '../src/linalg/cmatrix.ts';
 import { zgebal } from '../src/linalg/zgebal.ts';

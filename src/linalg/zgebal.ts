@@ -51,6 +51,7 @@ const SFMAX2 = 1 / SFMIN2;
  * @param range output, length ≥ 2: ilo, ihi
  * @param permute isolate eigenvalues by permutation (otherwise ilo = 0, ihi = n-1)
  * @param doScale apply the diagonal scaling
+ * @throws nothing: the kernel trusts its input
  * @example
  * const scale = new Float64Array(n), range = new Int32Array(2);
  * zgebal(n, h, scale, range, true, true);
@@ -224,6 +225,7 @@ export function zgebal(
  * @param ihi last row/column of the balanced block (inclusive)
  * @param scale permutation indices and scaling factors from zgebal, length ≥ n
  * @param v n×m, interleaved row-major; overwritten
+ * @throws nothing: the kernel trusts its input
  * @example
  * zgebak(n, n, ilo, ihi, scale, vectors.data);
  */

@@ -54,6 +54,7 @@ export function zgehrdWorkLength(n: number): number {
  * @param tau length ≥ 2n, receives the reflector scalars τ_k (complex)
  * @param work scratch, length ≥ 2n (unblocked) or ≥ {@link zgehrdWorkLength}(n) (with `big`)
  * @param big optional n×n scratch (length ≥ 2n²) that enables the blocked algorithm
+ * @throws nothing: the kernel trusts its input
  * @example
  * zgehrd(n, ilo, ihi, h, vs, tau, work, scratch);   // h is now Hessenberg
  * zunghr(n, ilo, ihi, vs, tau, q, work);            // q·h·qᴴ reproduces the input
@@ -511,6 +512,7 @@ export function zunghrWorkLength(n: number): number {
  * @param tau reflector scalars from zgehrd, length ≥ 2n
  * @param q n×n output, interleaved row-major, length ≥ 2n²
  * @param work scratch of length ≥ {@link zunghrWorkLength}(n)
+ * @throws nothing: the kernel trusts its input
  * @example
  * zunghr(n, ilo, ihi, vs, tau, q, new Float64Array(zunghrWorkLength(n)));
  */
@@ -668,6 +670,7 @@ function applyReflectorLeft(
  * @param ldc row stride of `c` in complex entries
  * @param r0 first row of `c` to update
  * @param r1 last row of `c` to update (inclusive)
+ * @throws nothing: the kernel trusts its input
  * @example
  * zgehrd(m, 0, ns, t, vs, tau, work);
  * zunmhrRight(m, 0, ns, vs, tau, v, m, 1, m - 1); // v ← v·Q

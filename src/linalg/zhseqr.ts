@@ -194,6 +194,7 @@ export class QrScratch {
  *   and `z` are its own `h` and `z`); null disables both
  * @returns 0 on success; otherwise i+1 where i is the row at which the iteration cap was hit
  *   (eigenvalues i+1..ihi had converged, the others in w are not set)
+ * @throws nothing: the kernel trusts its input and reports non-convergence by its result
  * @example
  * const info = zhseqr(n, ilo, ihi, h, true, q, w, rc, rsn, new QrScratch(n));
  * if (info > 0) throw new LinalgError('zgeev', 'no-convergence', n, '…');
@@ -875,7 +876,8 @@ function cdiv(ar: number, ai: number, br: number, bi: number): void {
 /** Bytes per packed rotation in the kernels' rotation buffer: C, SR, SN. */
 const ROT_BYTES = 48;
 
-interface RotationKernels {
+/** The SIMD rotation kernels (byte offsets into the memory of the QrScratch that owns them). */
+export interface RotationKernels {
   /** Left rotation of two rows: cnt entries from byte offsets p and q, rotation at byte r. */
   rotPair(p: number, q: number, cnt: number, r: number): void;
   /** Right rotations r, r+1, … (cnt of them) swept along nrows rows, from byte p, row stride. */

@@ -37,6 +37,7 @@ const SAFMIN = 2 ** -1022;
  * @param x n×n scratch (length ≥ 2n²), receives X
  * @param v n×n output (length ≥ 2n²), receives V
  * @param work scratch, length ≥ 2n
+ * @throws nothing: the kernel trusts its input
  * @example
  * ztrevc(n, t, z, x, vectors.data, work);
  */
