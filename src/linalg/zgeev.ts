@@ -3,6 +3,8 @@
  *
  * Pipeline (the driver structure of LAPACK's zgeev; Anderson et al., LAPACK Users' Guide,
  * 3rd ed., SIAM 1999, §2.3.4 and §2.4.8; Golub & Van Loan, Matrix Computations, 4th ed., ch. 7):
+ * 0. scale the matrix by a power of 2 if its largest entry is below √(underflow)/ε or above the
+ *    reciprocal (undone on the eigenvalues at the end; eigenvectors are unaffected);
  * 1. {@link zgebal}: permute to isolate eigenvalues and scale by powers of 2 (balancing);
  * 2. {@link zgehrd}: Householder reduction to upper Hessenberg form H = Qᴴ·A·Q;
  * 3. {@link zhseqr}: shifted QR iteration to the complex Schur form T = Zᴴ·H·Z;
@@ -22,6 +24,10 @@ import { zgebak, zgebal } from './zgebal.ts';
 import { zgehrd, zgehrdWorkLength, zunghr, zunghrWorkLength } from './zgehrd.ts';
 import { QrScratch, qrIterationCap, zhseqr } from './zhseqr.ts';
 import { ztrevc } from './ztrevc.ts';
+
+/** Entries are scaled into [SMLNUM, BIGNUM] first: √(smallest normal)/ε and its reciprocal. */
+const SMLNUM = Math.sqrt(2 ** -1022) / 2 ** -52;
+const BIGNUM = 1 / SMLNUM;
 
 export interface ZgeevResult {
   readonly n: number;
@@ -138,6 +144,21 @@ export function zgeev(a: Readonly<CMatrix>, options: ZgeevOptions = {}, workspac
 
   const { h, z, aux, tau, work, scale, rotC, rotS, range, qr } = ws;
   h.set(a.data.subarray(0, len));
+  // Bring the largest entry into [SMLNUM, BIGNUM] by an exact power of 2 (as LAPACK's zgeev
+  // does): the QR iteration treats subdiagonal entries near the underflow threshold as zero, so
+  // a matrix of norm 1e-300 would otherwise "converge" at once to its diagonal.
+  let amax = 0;
+  for (let k = 0; k < len; k++) {
+    const x = Math.abs(h[k]!);
+    if (x > amax) amax = x;
+  }
+  let expo = 0;
+  if (amax > 0 && amax < SMLNUM) expo = Math.ceil(Math.log2(SMLNUM / amax));
+  else if (amax > BIGNUM) expo = -Math.ceil(Math.log2(amax / BIGNUM));
+  if (expo !== 0) {
+    const f = 2 ** expo;
+    for (let k = 0; k < len; k++) h[k] *= f;
+  }
   zgebal(n, h, scale, range, balance, balance);
   const ilo = range[0]!;
   const ihi = range[1]!;
@@ -153,6 +174,10 @@ export function zgeev(a: Readonly<CMatrix>, options: ZgeevOptions = {}, workspac
       `QR iteration did not converge within ${cap} sweeps (30 per eigenvalue of the ` +
         `${ihi - ilo + 1}×${ihi - ilo + 1} active block); it stalled at row ${info - 1}`,
     );
+  }
+  if (expo !== 0) {
+    const f = 2 ** -expo;
+    for (let k = 0; k < 2 * n; k++) values[k] *= f;
   }
   if (!allFinite(values)) {
     throw new LinalgError('zgeev', 'non-finite', n, 'eigenvalues overflowed (entries too large)');

@@ -344,6 +344,22 @@ describe('balancing', () => {
     expect(errPlain, `unbalanced error ${errPlain} vs balanced ${errBalanced}`).toBeGreaterThan(1e6 * errBalanced);
   });
 
+  it('matrices of norm 1e±300: eigenvalues scale with the matrix, vectors unchanged in quality', () => {
+    // λ(s·A) = s·λ(A) (homogeneity); the relative residual is scale invariant
+    const n = 30;
+    const a = randomComplex(n, n, 55);
+    const reference = zgeev(a).values;
+    for (const s of [1e300, 1e-300, 2 ** -1060]) {
+      const b: CMatrix = { rows: n, cols: n, data: a.data.map((x) => x * s) };
+      const r = zgeev(b);
+      const unscaled = r.values.map((x) => x / s);
+      // 2^-1060 is subnormal: the input itself keeps only about 14 significant bits
+      const tol = s < 1e-307 ? 1e-3 : 1e-12;
+      expectBelow(`scale ${s} eigenvalues`, multisetDistance(reference, unscaled), tol * fro(a));
+      expectBelow(`scale ${s} residual`, eigResidual(a, unscaled, r.vectors!), s < 1e-307 ? 1e-3 : RES_TOL);
+    }
+  });
+
   it('permutation isolates eigenvalues of zero rows/columns; back-transform restores vectors', () => {
     // Row 2 and column 4 have zero off-diagonal parts, so 2 and 4 are isolated; the rest is dense.
     const n = 7;
@@ -460,7 +476,7 @@ describe('known spectra', () => {
     // det(zI − C) = zⁿ − 1 for the cyclic shift (companion matrix; GVL §7.4.6). C is a
     // permutation matrix (normal, condition 1), and the plain shift makes no progress on it
     // (every Wilkinson shift is 0), so this exercises the exceptional shifts.
-    for (const n of [2, 5, 16, 64, 101]) {
+    for (const n of [2, 5, 16, 64, 101, 150]) {
       const roots: Array<[number, number]> = [];
       for (let k = 0; k < n; k++) roots.push([Math.cos((2 * Math.PI * k) / n), Math.sin((2 * Math.PI * k) / n)]);
       // companion matrix of zⁿ − 1 written exactly: first row (0, …, 0, 1), ones below the diagonal
