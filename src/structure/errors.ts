@@ -1,7 +1,9 @@
 /**
  * The error every structure builder raises on bad input: it names the parameter, what was
- * expected and what was found, e.g.
- * "sawtooth.blazeDeg: expected an angle in (0°, 90°), found 95".
+ * expected and what was found.
+ * @example
+ * try { sawtooth({ periodUm: 1, blazeDeg: 95, ridgeMaterial: 'Al', grooveMaterial: 'air', slices: 10 }); }
+ * catch (e) { (e as StructureError).message; } // → "sawtooth.blazeDeg: expected an angle in (0°, 90°), found 95"
  */
 export class StructureError extends Error {
   override readonly name = 'StructureError';

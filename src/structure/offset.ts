@@ -42,12 +42,26 @@ export function offsetSurface(base: HeightProfile, tUm: number): HeightProfile {
   if (last[1] !== first[1]) edges.push([L, Math.min(first[1], last[1]), L, Math.max(first[1], last[1])]);
   if (edges.length === 0) edges.push([v[0]![0], v[0]![1], v[0]![0], v[0]![1]]);
   const max = base.maxUm + tUm;
+  // edges come in vertex order (the seam wall, at x = Λ, last), so their left and right ends are
+  // both non-decreasing: the edges within reach of an abscissa are a contiguous run
+  const ordered = edges;
+  const firstReaching = (x: number): number => {
+    // first edge whose right end bx ≥ x
+    let lo = 0;
+    let hi = ordered.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (ordered[mid]![2] < x) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo;
+  };
   const heightAt = (x: number): number => {
     const xu = (x - Math.floor(x)) * L;
     let best = -Infinity;
-    for (const [ax, az, bx, bz] of edges) {
-      for (const xs of [xu, xu - L, xu + L]) {
-        if (xs < Math.min(ax, bx) - tUm || xs > Math.max(ax, bx) + tUm) continue;
+    for (const xs of [xu, xu - L, xu + L]) {
+      for (let i = firstReaching(xs - tUm); i < ordered.length && ordered[i]![0] <= xs + tUm; i++) {
+        const [ax, az, bx, bz] = ordered[i]!;
         best = Math.max(best, capsuleTop(ax, az, bx, bz, tUm, xs));
       }
     }
@@ -65,7 +79,9 @@ export function offsetSurface(base: HeightProfile, tUm: number): HeightProfile {
     const f = x / L - Math.floor(x / L);
     if (f > 1e-12 && f < 1 - 1e-12) special.add(f);
   };
-  for (const [ax, az, bx, bz] of edges) {
+  // (only for a true polyline: a sampled curve has a mild corner at every sample, and the
+  // regular sampling below already resolves it)
+  for (const [ax, az, bx, bz] of base.exact ? edges : []) {
     for (const x of [ax - tUm, ax, ax + tUm, bx - tUm, bx, bx + tUm]) addSpecial(x);
     const len = Math.hypot(bx - ax, bz - az);
     if (bx > ax) {

@@ -9,8 +9,14 @@ import type { HeightProfile } from './types.ts';
 
 /**
  * Build a surface from vertices (x µm, h µm) in non-decreasing x that span exactly one period,
- * from x0 to x0 + Λ (any x0); the surface repeats with period Λ. Heights must be ≥ 0; the
- * builders validate their parameters before calling this.
+ * from x0 to x0 + Λ (any x0); the surface repeats with period Λ.
+ * @param periodUm period Λ (µm)
+ * @param points vertices (x µm, h µm ≥ 0), two at the same x making a vertical wall
+ * @returns the surface, with exact `above` intersections
+ * @throws never: the builders validate their parameters before calling this (unchecked input
+ *   gives a meaningless surface)
+ * @example
+ * polylineSurface(1, [[0, 0], [0.75, 0.433], [1, 0]]).above(0.2165); // → [[0.375, 0.875]]
  */
 export function polylineSurface(periodUm: number, points: ReadonlyArray<readonly [number, number]>): HeightProfile {
   const verts = canonical(periodUm, points);

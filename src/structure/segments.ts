@@ -126,21 +126,3 @@ export function segmentsDiffer(a: ReadonlyArray<NamedSegment>, b: ReadonlyArray<
   }
   return differ;
 }
-
-/** Total width of the segments of one material. */
-export function fillOf(segments: ReadonlyArray<NamedSegment>, material: string): number {
-  let f = 0;
-  for (const s of segments) if (s.material === material) f += s.to - s.from;
-  return f;
-}
-
-/** True when two tilings are identical (same cuts within 1e-12 and same materials). */
-export function sameSegments(a: ReadonlyArray<NamedSegment>, b: ReadonlyArray<NamedSegment>): boolean {
-  if (a.length !== b.length) return false;
-  for (let i = 0; i < a.length; i++) {
-    const p = a[i]!;
-    const q = b[i]!;
-    if (p.material !== q.material || Math.abs(p.from - q.from) > 1e-12 || Math.abs(p.to - q.to) > 1e-12) return false;
-  }
-  return true;
-}
