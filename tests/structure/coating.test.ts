@@ -64,6 +64,12 @@ describe('conformalCoating()', () => {
     expect(c.layers.at(-1)!.thicknessUm).toBeCloseTo(t, 14);
   });
 
+  it('raises the slice count to one per level when fewer are asked for, and says so', () => {
+    const c = conformalCoating(lam, { thicknessUm: t, material: 'Al', slices: 1 });
+    expect(c.slices).toBe(3); // floor coating, sidewalls, rounded top: three levels (geometry)
+    expect(c.notes.at(-1)).toBe('slices: 3 used instead of 1: the profile has 3 levels that each need a slice of their own');
+  });
+
   it('gives a right-angle sawtooth the offset area t·ℓ + πt²/4 − t² per period', () => {
     const b = 25;
     const g = sawtooth({ periodUm: L, blazeDeg: b, slices: 10, ...base });
