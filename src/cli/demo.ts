@@ -1,6 +1,6 @@
 /** The built-in demo design (an invented example, not a product). */
 import { designToProblem, type Problem } from '../design/index.ts';
-import example from '../design/examples/gold-lamellar.json' with { type: 'json' };
+import example from '../design/examples/blazed-aluminium-spectrometer.json' with { type: 'json' };
 
 export function demoDesign(): Problem {
   return designToProblem(example);

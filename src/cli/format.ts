@@ -9,7 +9,7 @@ const pad = (s: string, w: number): string => s.padStart(w);
 export function describeProblem(p: Problem): string[] {
   const { structure: s, incidence: i } = p;
   const orders = typeof p.options.orders === 'number' ? `−${p.options.orders}…${p.options.orders}` : `${p.options.orders.min}…${p.options.orders.max}`;
-  const idx = (n: { re: number; im: number }): string => (n.im ? `${n.re}+${n.im}i` : `${n.re}`);
+  const idx = (n: { re: number; im: number }): string => (n.im ? `${+n.re.toFixed(6)}+${+n.im.toFixed(6)}i` : `${+n.re.toFixed(6)}`);
   return [
     `design      ${p.title}`,
     `period      ${f(s.periodUm * 1000, 3)} nm (${f(1000 / s.periodUm, 2)} lines/mm)`,

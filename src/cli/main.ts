@@ -11,7 +11,7 @@ import { ordersReport } from './orders.ts';
 import { demoDesign } from './demo.ts';
 import { MaterialError, MaterialLibrary } from '../materials/index.ts';
 import { materialsList, materialsShow } from './materials.ts';
-import { lengthUm } from '../design/index.ts';
+import { designJsonSchema, lengthUm } from '../design/index.ts';
 
 /** A user-facing failure: message and exit code. */
 export class CliFailure extends Error {
@@ -45,13 +45,21 @@ function runSolve(p: Problem, json: boolean, out: (s: string) => void): void {
   const r = solve(p.structure, p.incidence, p.options);
   const ms = performance.now() - t0;
   if (json) {
-    out(JSON.stringify({ input: { title: p.title, structure: p.structure, incidence: p.incidence, options: p.options }, result: r }, null, 2));
+    out(
+      JSON.stringify(
+        { input: { title: p.title, structure: p.structure, incidence: p.incidence, options: p.options }, notes: p.notes, warnings: p.warnings, result: r },
+        null,
+        2,
+      ),
+    );
     return;
   }
   for (const l of describeProblem(p)) out(l);
+  for (const n of p.notes) out(`note        ${n}`);
   out('');
   for (const l of orderTable(r)) out(l);
   out('');
+  for (const w of p.warnings) out(`warning: ${w}`);
   out(`solved in ${ms.toFixed(1)} ms (furrow ${SOLVER_VERSION})`);
 }
 
@@ -101,10 +109,14 @@ export function buildProgram(out: (s: string) => void): Command {
       for (const l of lines) out(l);
     });
   program
+    .command('schema')
+    .description('print the design file\'s JSON Schema (for editor completion and validation)')
+    .action(() => out(JSON.stringify({ $id: 'https://furrow.invalid/design.schema.json', title: 'Furrow design file', ...(designJsonSchema() as object) }, null, 2)));
+  program
     .command('demo')
-    .description('solve the built-in example (a gold lamellar grating) and show the result')
+    .description('solve the built-in example (a blazed aluminium spectrometer grating) and show the result')
     .action(() => {
-      out('Furrow demo: a gold-coated lamellar reflection grating, TE and TM.');
+      out('Furrow demo: a blazed, aluminium-coated reflection grating for a visible spectrometer, TE and TM.');
       out('');
       runSolve(demoDesign(), false, out);
     });

@@ -92,6 +92,11 @@ export interface SolveOptions {
    * forces the coupled 2N-mode formulation even at φ = 0 (for cross-checks).
    */
   readonly formulation?: 'auto' | 'conical';
+  /**
+   * Accept κ < 0 (gain) in layers and substrate. Off by default: a negative κ is far more often a
+   * sign-convention slip than an amplifier. With gain, A = 1 − R − T comes out negative.
+   */
+  readonly allowGain?: boolean;
 }
 
 /** A diffracted order in one incidence case. */

@@ -15,20 +15,21 @@ function finite(field: string, v: unknown): number {
   return v;
 }
 
-function index(field: string, n: unknown): Complex {
+/** Gain media (κ < 0) are refused unless the caller says they are intended. */
+function index(field: string, n: unknown, gainAllowed = false): Complex {
   if (typeof n !== 'object' || n === null) fail(field, 'a complex index {re, im}', n);
   const c = n as Complex;
   finite(`${field}.re`, c.re);
   finite(`${field}.im`, c.im);
-  if (c.im < 0) fail(`${field}.im`, 'κ ≥ 0 (absorption; exp(−iωt) convention)', c.im);
+  if (c.im < 0 && !gainAllowed) fail(`${field}.im`, 'κ ≥ 0 (absorption; exp(−iωt) convention), or options.allowGain for a gain medium', c.im);
   if (c.re === 0 && c.im === 0) fail(field, 'a non-zero index', '0');
   return c;
 }
 
-function profile(field: string, p: Profile): void {
+function profile(field: string, p: Profile, gain: boolean): void {
   switch (p?.kind) {
     case 'uniform':
-      index(`${field}.index`, p.index);
+      index(`${field}.index`, p.index, gain);
       return;
     case 'segments': {
       if (!Array.isArray(p.segments) || p.segments.length === 0) fail(`${field}.segments`, 'at least one segment', p.segments);
@@ -39,7 +40,7 @@ function profile(field: string, p: Profile): void {
         const to = finite(`${f}.to`, s.to);
         if (Math.abs(from - at) > 1e-12) fail(`${f}.from`, `${at} (segments must tile [0, 1) in order, without gaps or overlaps)`, from);
         if (!(to > from)) fail(`${f}.to`, `a value greater than from = ${from}`, to);
-        index(`${f}.index`, s.index);
+        index(`${f}.index`, s.index, gain);
         at = to;
       });
       if (Math.abs(at - 1) > 1e-12) fail(`${field}.segments`, 'segments ending at 1 (the full period)', at);
@@ -67,17 +68,18 @@ function profile(field: string, p: Profile): void {
 
 /** @throws {SolverError} 'invalid-input' */
 export function validateProblem(s: Structure, inc: Incidence, opt: SolveOptions): void {
+  const gain = opt.allowGain === true;
   const period = finite('structure.periodUm', s.periodUm);
   if (!(period > 0)) fail('structure.periodUm', 'a period > 0 µm', period);
   const cover = index('structure.cover', s.cover);
   if (cover.im !== 0) fail('structure.cover.im', '0 (the cover must be lossless so the incident wave is defined)', cover.im);
   if (!(cover.re > 0)) fail('structure.cover.re', 'a positive index', cover.re);
-  index('structure.substrate', s.substrate);
+  index('structure.substrate', s.substrate, gain);
   if (!Array.isArray(s.layers)) fail('structure.layers', 'a list of layers', s.layers);
   s.layers.forEach((l, i) => {
     const t = finite(`structure.layers[${i}].thicknessUm`, l?.thicknessUm);
     if (!(t >= 0)) fail(`structure.layers[${i}].thicknessUm`, 'a thickness ≥ 0 µm', t);
-    profile(`structure.layers[${i}].profile`, l.profile);
+    profile(`structure.layers[${i}].profile`, l.profile, gain);
   });
   const lambda = finite('incidence.wavelengthUm', inc.wavelengthUm);
   if (!(lambda > 0)) fail('incidence.wavelengthUm', 'a wavelength > 0 µm', lambda);

@@ -93,3 +93,16 @@ describe('furrow materials', () => {
     expect(b.text).toMatch(/did you mean 'Au-LD'/);
   });
 });
+
+describe('furrow schema', () => {
+  it('prints the JSON Schema of the design file, identical to the committed src/design/design.schema.json', async () => {
+    const r = await run('schema');
+    expect(r.code).toBe(0);
+    const schema = JSON.parse(r.text);
+    expect(schema.properties.grating.oneOf ?? schema.properties.grating.anyOf).toBeDefined();
+    expect(Object.keys(schema.properties)).toEqual(expect.arrayContaining(['period', 'grooveDensityPerMm', 'substrate', 'grating', 'incidence', 'orders', 'slices']));
+    const { readFileSync } = await import('node:fs');
+    const committed = JSON.parse(readFileSync(new URL('../../src/design/design.schema.json', import.meta.url), 'utf8'));
+    expect(committed, 'regenerate with: node src/cli/bin.mjs schema > src/design/design.schema.json').toEqual(schema);
+  });
+});
