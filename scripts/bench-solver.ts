@@ -31,7 +31,7 @@
  * itself (zheev or zgeev, timed on the very matrices the layers produce); the rest of the modes
  * (eigenvector post-products, LU of W and V) by difference; the stack recursion (timed on the
  * prebuilt modes) and the share of it spent in its dense kernels (zgemm, zgetrs, zgetrf,
- * zgetrsRight, each timed alone at the same N and multiplied by its call count); the other
+ * each timed alone at the same N and multiplied by its call count); the other
  * polarization's path; and the post-processing of `solve()` by difference. numpy reports the
  * share of its solve spent in eig (or eigh).
  *
@@ -43,7 +43,6 @@ import { cmatrix, type CMatrix } from '../src/linalg/cmatrix.ts';
 import { toeplitz } from '../src/linalg/toeplitz.ts';
 import { zgemm } from '../src/linalg/zgemm.ts';
 import { zgetrf, zgetri, zgetrs } from '../src/linalg/zgetrf.ts';
-import { zgetrsRight } from '../src/linalg/zgetrsRight.ts';
 import { zpotrf } from '../src/linalg/zpotrf.ts';
 import { LinalgError } from '../src/linalg/errors.ts';
 import { linalgBackend } from '../src/linalg/wasm/runtime.ts';
@@ -304,16 +303,16 @@ function seededMatrix(n: number, seed: number): CMatrix {
  * N×N dense kernel calls of one solveStack() over cover, layers (dense when modulated) and
  * substrate: at the interface below medium j, W·(I + R′) and V·(I − R′) are zgemm when the medium
  * below is dense; W⁻¹· and V⁻¹· are zgetrs (N right-hand sides) when the medium above is dense;
- * S is factored (zgetrf) at every interface; R = Δ·S⁻¹ (zgetrsRight) at every one but the top.
+ * Sᵀ is factored (zgetrf) at every interface; R = Δ·S⁻¹ = (S⁻ᵀ·Δᵀ)ᵀ is one more zgetrs at every one but the top.
  */
-function stackKernelCounts(dense: readonly boolean[]): { zgemm: number; zgetrs: number; zgetrf: number; zgetrsRight: number } {
+function stackKernelCounts(dense: readonly boolean[]): { zgemm: number; zgetrs: number; zgetrf: number } {
   const media = [false, ...dense, false];
-  const c = { zgemm: 0, zgetrs: 0, zgetrf: 0, zgetrsRight: 0 };
+  const c = { zgemm: 0, zgetrs: 0, zgetrf: 0 };
   for (let j = media.length - 2; j >= 0; j--) {
     if (media[j + 1]) c.zgemm += 2;
     if (media[j]) c.zgetrs += 2;
     c.zgetrf += 1;
-    if (j > 0) c.zgetrsRight += 1;
+    if (j > 0) c.zgetrs += 1;
   }
   return c;
 }
@@ -416,7 +415,7 @@ export interface SolverBreakdown {
   readonly stack_ms: number;
   /**
    * the dense kernels the recursion calls, timed alone at this N and multiplied by their counts
-   * (zgemm for W·(I ± R), zgetrs for W⁻¹ and V⁻¹, zgetrf of S, zgetrsRight for Δ·S⁻¹)
+   * (zgemm for W·(I ± R), zgetrs for W⁻¹, V⁻¹ and R = (S⁻ᵀ·Δᵀ)ᵀ, zgetrf of Sᵀ)
    */
   readonly stack_kernels_ms: number;
   /** the counts and per-call ms behind stack_kernels_ms */
@@ -557,7 +556,6 @@ export async function runSolverBench(options: SolverBenchOptions = {}): Promise<
         () => zgemm(kOut, kA, kB),
         () => zgetrf(kA, kLU),
         () => zgetrs(kLU, kB, kOut),
-        () => zgetrsRight(kLU, kB, kOut),
       );
     }
     log(`${c.name} M = ${M}: timing solve(), the ${polarization} path${wantBreakdown ? ' and the breakdown' : ''} …`);
@@ -579,8 +577,8 @@ export async function runSolverBench(options: SolverBenchOptions = {}): Promise<
     if (wantBreakdown) {
       const at = (k: number): number => t[2 + k]!;
       const [otherPol, fourier, setup, eigen, modes, stack] = [at(0), at(1), at(2), at(3), at(4), at(5)];
-      const [tGemm, tGetrf, tGetrs, tRight] = [at(6), at(7), at(8), at(9)];
-      const kernels = count.zgemm * tGemm + count.zgetrf * tGetrf + count.zgetrs * tGetrs + count.zgetrsRight * tRight;
+      const [tGemm, tGetrf, tGetrs] = [at(6), at(7), at(8)];
+      const kernels = count.zgemm * tGemm + count.zgetrf * tGetrf + count.zgetrs * tGetrs;
       const kinds = [...new Set(problems.map((p) => p.kind))].join('+');
       breakdown = {
         fourier_ms: fourier,
@@ -593,7 +591,7 @@ export async function runSolverBench(options: SolverBenchOptions = {}): Promise<
         stack_kernels_ms: kernels,
         stack_kernels:
           `${count.zgemm} zgemm × ${tGemm.toFixed(3)} + ${count.zgetrs} zgetrs × ${tGetrs.toFixed(3)} + ` +
-          `${count.zgetrf} zgetrf × ${tGetrf.toFixed(3)} + ${count.zgetrsRight} zgetrsRight × ${tRight.toFixed(3)} ms`,
+          `${count.zgetrf} zgetrf × ${tGetrf.toFixed(3)} ms`,
         other_pol_ms: otherPol,
         post_ms: median - pol - otherPol,
       };
