@@ -3,6 +3,7 @@
  * user can cause is printed as one clear message (exit code 2), never a stack trace.
  */
 import { readFileSync } from 'node:fs';
+import { dirname, resolve } from 'node:path';
 import { Command, CommanderError } from 'commander';
 import { InputError, parseDesign, type Problem } from '../design/index.ts';
 import { SolverError, solve, SOLVER_VERSION } from '../solver/index.ts';
@@ -30,7 +31,8 @@ function loadDesign(path: string): Problem {
   } catch (e) {
     throw new CliFailure(`cannot read design file ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
   }
-  return parseDesign(text, path);
+  const dir = dirname(resolve(path));
+  return parseDesign(text, path, (file) => readFileSync(resolve(dir, file), 'utf8'));
 }
 
 function withOverrides(p: Problem, opts: { orders?: string }): Problem {

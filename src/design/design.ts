@@ -78,19 +78,19 @@ function zodMessage(err: z.ZodError): string {
  * Parse the JSON text of a design file and build the problem at its wavelength.
  * @throws {InputError} naming the field and what to change.
  */
-export function parseDesign(text: string, source = 'design'): Problem {
-  return problemAt(parseDesignModel(text, source));
+export function parseDesign(text: string, source = 'design', readText?: ReadText): Problem {
+  return problemAt(parseDesignModel(text, source, readText));
 }
 
 /** Parse JSON text into the wavelength-independent model. @throws {InputError} */
-export function parseDesignModel(text: string, source = 'design'): DesignModel {
+export function parseDesignModel(text: string, source = 'design', readText?: ReadText): DesignModel {
   let raw: unknown;
   try {
     raw = JSON.parse(text);
   } catch (e) {
     throw new InputError(source, `not valid JSON: ${(e as Error).message}`);
   }
-  return designToModel(raw);
+  return designToModel(raw, readText);
 }
 
 /** Validate a design object and build the problem at its wavelength. @throws {InputError} */
@@ -109,13 +109,32 @@ function under<T>(path: string, f: () => T): T {
   }
 }
 
-/** Validate and build the wavelength-independent model. @throws {InputError} */
-export function designToModel(raw: unknown): DesignModel {
+/** Reads a file named in the design (CSV material tables); the CLI reads relative to the design. */
+export type ReadText = (file: string) => string;
+
+/**
+ * Validate and build the wavelength-independent model.
+ * @param readText reads the CSV files named in `materialTables` (the engine has no file access of
+ *   its own); designs without tables need none.
+ * @throws {InputError}
+ */
+export function designToModel(raw: unknown, readText?: ReadText): DesignModel {
   const parsed = DesignSchema.safeParse(raw);
   if (!parsed.success) throw new InputError('design', 'these fields need changing:\n' + zodMessage(parsed.error));
   const d: Design = parsed.data;
   const library = new MaterialLibrary();
   (d.materials ?? []).forEach((m, i) => under(`materials[${i}]`, () => library.addEntry(m)));
+  (d.materialTables ?? []).forEach((t, i) => {
+    const path = `materialTables[${i}]`;
+    if (!readText) throw new InputError(`${path}.file`, 'this caller cannot read files; give the material as a JSON entry in "materials"');
+    let text: string;
+    try {
+      text = readText(t.file);
+    } catch (e) {
+      throw new InputError(`${path}.file`, `cannot read "${t.file}": ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
+    }
+    under(path, () => library.addCsv(text, { name: t.name, ...(t.unit ? { unit: t.unit } : {}), citation: t.citation ?? `user table ${t.file}` }));
+  });
   const periodUm = pickLength(d, 'period', '') ?? densityToPeriod(d.grooveDensityPerMm);
   if (periodUm === undefined) throw new InputError('period', 'missing: give "period": "833.3 nm", "periodUm": 0.8333 or "grooveDensityPerMm": 1200');
   if (!(periodUm > 0)) throw new InputError('period', `expected a period > 0, found ${periodUm} µm`);
@@ -186,12 +205,14 @@ export function designToModel(raw: unknown): DesignModel {
  */
 export function problemAt(model: DesignModel, wavelengthUm: number = model.incidence.wavelengthUm, overrides: Partial<Incidence> = {}): Problem {
   const warnings: string[] = [];
+  const materialNotes: string[] = [];
   const cache = new Map<string, Complex>();
   const indexOf = (m: string, path: string): Complex => {
     let v = cache.get(m);
     if (v === undefined) {
       const r = under(path, () => resolveIndex(model.library, m, wavelengthUm, model.allowExtrapolation));
       warnings.push(...r.warnings);
+      materialNotes.push(...r.notes.map((n) => `${m}: ${n}`));
       v = r.index;
       if (v.im < 0 && !model.allowGain) {
         throw new InputError(path, `material '${m}' has κ = ${v.im} < 0 (gain) at ${wavelengthUm} µm; set "allowGain": true if a gain medium is intended`);
@@ -213,7 +234,7 @@ export function problemAt(model: DesignModel, wavelengthUm: number = model.incid
     incidence,
     options: { orders: model.orders, factorization: model.factorization, ...(model.allowGain ? { allowGain: true } : {}) },
     warnings: [...new Set(warnings)],
-    notes: [...model.notes, ...(model.slices !== null ? [`profile sliced into ${model.slices} layer${model.slices === 1 ? '' : 's'}`] : [])],
+    notes: [...model.notes, ...new Set(materialNotes), ...(model.slices !== null ? [`profile sliced into ${model.slices} layer${model.slices === 1 ? '' : 's'}`] : [])],
   };
 }
 
@@ -244,14 +265,16 @@ function orderWarnings(model: DesignModel, nCover: number, nSub: number, inc: In
 interface ResolvedIndex {
   index: Complex;
   warnings: string[];
+  /** standing caveats of the entry, e.g. which index of a uniaxial crystal is used */
+  notes: string[];
 }
 
 /** A literal index or a library material at λ. */
 function resolveIndex(lib: MaterialLibrary, ref: string, wavelengthUm: number, allowExtrapolation: boolean): ResolvedIndex {
   const lit = parseIndexLiteral(ref);
-  if (lit) return { index: lit, warnings: [] };
+  if (lit) return { index: lit, warnings: [], notes: [] };
   const e = lib.evaluate(ref, wavelengthUm, { allowExtrapolation });
-  return { index: e.index, warnings: [...e.warnings] };
+  return { index: e.index, warnings: [...e.warnings], notes: [...e.notes] };
 }
 
 const LITERAL = /^\s*([+-]?\d*\.?\d+(?:[eE][+-]?\d+)?)\s*(?:([+-])\s*(\d*\.?\d+(?:[eE][+-]?\d+)?)\s*[ij])?\s*$/;

@@ -121,6 +121,10 @@ export const DesignSchema = z.strictObject({
   substrate: MaterialRefSchema,
   /** user materials (JSON model entries); they override library entries of the same name */
   materials: z.array(MaterialEntrySchema).optional(),
+  /** user materials from CSV tables of wavelength, n, k (file paths relative to the design file) */
+  materialTables: z
+    .array(z.strictObject({ name: z.string().min(1), file: z.string().min(1), unit: z.string().optional(), citation: z.string().optional() }))
+    .optional(),
   /** thin films between the cover and the grating, top first */
   above: StackSchema.optional(),
   grating: GratingSchema.optional(),

@@ -106,3 +106,27 @@ describe('furrow schema', () => {
     expect(committed, 'regenerate with: node src/cli/bin.mjs schema > src/design/design.schema.json').toEqual(schema);
   });
 });
+
+describe('designs with user material tables', () => {
+  it('reads a CSV table next to the design and uses it (a flat n = 1.5 table gives R = 0.04 at normal incidence: Fresnel)', async () => {
+    write('flat-glass.csv', '# measured on an invented bench\nwavelength_nm,n,k\n400,1.5,0\n800,1.5,0\n');
+    const d = write('with-table.json', { period: '1 um', substrate: 'my-glass', materialTables: [{ name: 'my-glass', file: 'flat-glass.csv' }], incidence: { wavelength: '600 nm' }, orders: 3 });
+    const r = await run('solve', d, '--json');
+    expect(r.code).toBe(0);
+    expect(Math.abs(JSON.parse(r.text).result.s.R - 0.04)).toBeLessThan(1e-14);
+  });
+  it('says which line of a bad table is wrong, and which file is missing', async () => {
+    write('bad.csv', 'wavelength_nm,n,k\n400,1.5,0\n500,abc,0\n');
+    const d = write('bad-table.json', { period: '1 um', substrate: 'x', materialTables: [{ name: 'x', file: 'bad.csv' }], incidence: { wavelength: '450 nm' } });
+    const r = await run('solve', d);
+    expect(r.code).toBe(2);
+    expect(r.text).toMatch(/materialTables\[0\].*line 3/);
+    const m = write('missing-table.json', { period: '1 um', substrate: 'x', materialTables: [{ name: 'x', file: 'nope.csv' }], incidence: { wavelength: '450 nm' } });
+    expect((await run('solve', m)).text).toMatch(/materialTables\[0\]\.file: cannot read "nope\.csv": ENOENT/);
+  });
+  it('notes which index of a uniaxial crystal was used (sapphire: ordinary)', async () => {
+    const d = write('sapphire.json', { period: '1 um', substrate: 'sapphire', incidence: { wavelength: '633 nm' }, orders: 2 });
+    const r = await run('solve', d);
+    expect(r.text).toMatch(/note\s+sapphire: .*ordinary index/);
+  });
+});
