@@ -2,3 +2,4 @@
 export * from './types.ts';
 export * from './errors.ts';
 export { solve, SOLVER_VERSION } from './solve.ts';
+export { ModeCache } from './cache.ts';

@@ -48,6 +48,10 @@ export interface Modes {
   readonly q: Float64Array;
   /** out = W·M (M is n×c) */
   mulW(out: CMatrix, m: Readonly<CMatrix>): CMatrix;
+  /** out = W as a dense n×n matrix */
+  denseW(out: CMatrix): CMatrix;
+  /** out = V as a dense n×n matrix */
+  denseV(out: CMatrix): CMatrix;
   mulV(out: CMatrix, m: Readonly<CMatrix>): CMatrix;
   /** out = W⁻¹·M; `out` may be `m` */
   solveW(out: CMatrix, m: Readonly<CMatrix>): CMatrix;
@@ -161,6 +165,12 @@ class DiagModes implements Modes {
   mulW(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
     return scaleRows(out, this.w, m);
   }
+  denseW(out: CMatrix): CMatrix {
+    return diagInto(out, this.w);
+  }
+  denseV(out: CMatrix): CMatrix {
+    return diagInto(out, this.v);
+  }
   mulV(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
     return scaleRows(out, this.v, m);
   }
@@ -170,6 +180,16 @@ class DiagModes implements Modes {
   solveV(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
     return scaleRows(out, this.vInv, m);
   }
+}
+
+function diagInto(out: CMatrix, d: Float64Array): CMatrix {
+  const n = out.rows;
+  out.data.fill(0);
+  for (let i = 0; i < n; i++) {
+    out.data[2 * (i * n + i)] = d[2 * i]!;
+    out.data[2 * (i * n + i) + 1] = d[2 * i + 1]!;
+  }
+  return out;
 }
 
 function invertDiag(d: Float64Array): Float64Array {
@@ -240,6 +260,12 @@ class BlockModes implements Modes {
   mulW(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
     return applyBlocks(out, this.w, this.N, m);
   }
+  denseW(out: CMatrix): CMatrix {
+    return blocksInto(out, this.w, this.N);
+  }
+  denseV(out: CMatrix): CMatrix {
+    return blocksInto(out, this.v, this.N);
+  }
   mulV(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
     return applyBlocks(out, this.v, this.N, m);
   }
@@ -273,6 +299,25 @@ function invertBlocks(b: Float64Array, N: number): Float64Array {
     o[k + 7] = ar * ii + ai * ir;
   }
   return o;
+}
+
+/** The 2N×2N matrix of diagonal blocks, dense. */
+function blocksInto(out: CMatrix, b: Float64Array, N: number): CMatrix {
+  const n = 2 * N;
+  const o = out.data;
+  o.fill(0);
+  for (let i = 0; i < N; i++) {
+    const k = 8 * i;
+    const put = (r: number, c: number, off: number): void => {
+      o[2 * (r * n + c)] = b[k + off]!;
+      o[2 * (r * n + c) + 1] = b[k + off + 1]!;
+    };
+    put(i, i, 0);
+    put(i, N + i, 2);
+    put(N + i, i, 4);
+    put(N + i, N + i, 6);
+  }
+  return out;
 }
 
 /** out = B·m for block matrix B (2N×2N of diagonal blocks); out may alias m. */
@@ -319,6 +364,14 @@ class DenseModes implements Modes {
   }
   mulW(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
     return zgemm(out, this.W, m);
+  }
+  denseW(out: CMatrix): CMatrix {
+    out.data.set(this.W.data);
+    return out;
+  }
+  denseV(out: CMatrix): CMatrix {
+    out.data.set(this.V.data);
+    return out;
   }
   mulV(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
     return zgemm(out, this.V, m);

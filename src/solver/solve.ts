@@ -15,6 +15,7 @@ import { directionAngles } from './grating-equation.ts';
 import { isLossless, permittivityOf, profileCoefficients } from './fourier.ts';
 import { type Family, homogeneousModes, type Modes, modulatedModes } from './modes.ts';
 import { solveStack } from './stack.ts';
+import { ModeCache } from './cache.ts';
 import type { Complex, Incidence, Jones, OrderResult, Profile, Response, SolveOptions, SolveResult, Structure } from './types.ts';
 import { validateProblem } from './validate.ts';
 
@@ -35,6 +36,8 @@ interface Raw {
  * @param structure cover, layers, substrate and period (µm).
  * @param incidence wavelength (µm), angles (deg) and optional polarization of interest.
  * @param options retained orders and method switches.
+ * @param cache optional store of layer modes shared across calls (see cache.ts): a depth or
+ *   thickness sweep then solves each distinct layer profile once per wavelength and incidence.
  * @returns s (TE) and p (TM) responses, and the requested polarization's, with every
  *   propagating order's efficiency, angles and complex amplitudes.
  * @throws {SolverError} 'invalid-input' naming the field, expected and found value;
@@ -44,7 +47,7 @@ interface Raw {
  * solve({ periodUm: 1, cover: {re: 1, im: 0}, substrate: {re: 1.5, im: 0}, layers: [] },
  *       { wavelengthUm: 0.6, thetaDeg: 0 }, { orders: 2 }).s.R; // → 0.04
  */
-export function solve(structure: Structure, incidence: Incidence, options: SolveOptions): SolveResult {
+export function solve(structure: Structure, incidence: Incidence, options: SolveOptions, cache?: ModeCache): SolveResult {
   validateProblem(structure, incidence, options);
   const { min: mMin, max: mMax } = typeof options.orders === 'number' ? { min: -options.orders, max: options.orders } : options.orders;
   const N = mMax - mMin + 1;
@@ -71,19 +74,24 @@ export function solve(structure: Structure, incidence: Incidence, options: Solve
   const epsSub = permittivityOf(structure.substrate);
 
   const families: Family[] = classical ? ['TE', 'TM'] : ['conical'];
+  // identical layers share their modes within this solve even without a cache
+  const store = cache ?? new ModeCache(structure.layers.length + 2);
+  const waveKey = `${factorization}|${hermitian}|${ky}|${az[0]},${az[1]}|${Array.prototype.join.call(kx, ',')}`;
   const raws: Raw[] = []; // [s, p]
   for (const family of families) {
-    const media: Modes[] = [homogeneousModes(epsCover, kx, ky, family, az)];
+    const half = (eps: [number, number]): Modes => store.get(`${family}|${waveKey}|h:${eps[0]},${eps[1]}`, () => homogeneousModes(eps, kx, ky, family, az));
+    const media: Modes[] = [half(epsCover)];
     const thickness: number[] = [0];
     structure.layers.forEach((layer, li) => {
       try {
-        media.push(layerModes(layer.profile, kx, ky, family, az, factorization, hermitian));
+        const key = `${family}|${waveKey}|${profileKey(layer.profile)}`;
+        media.push(store.get(key, () => layerModes(layer.profile, kx, ky, family, az, factorization, hermitian)));
       } catch (e) {
         throw numerical(e, li, incidence, family);
       }
       thickness.push(k0 * layer.thicknessUm);
     });
-    media.push(homogeneousModes(epsSub, kx, ky, family, az));
+    media.push(half(epsSub));
     thickness.push(0);
     const n = media[0]!.n;
     // incident mode amplitudes: classical TE (Ey = 1) is s; classical TM (Hy = n_c) is p;
@@ -161,6 +169,18 @@ function layerModes(
     factorization,
     hermitian,
   });
+}
+
+/** A string that identifies a profile's permittivity exactly (numbers in full precision). */
+function profileKey(p: Profile): string {
+  switch (p.kind) {
+    case 'uniform':
+      return `u:${p.index.re},${p.index.im}`;
+    case 'segments':
+      return 's:' + p.segments.map((s) => `${s.from},${s.to},${s.index.re},${s.index.im}`).join(';');
+    case 'fourier':
+      return 'f:' + p.permittivity.map((c) => `${c.re},${c.im}`).join(';') + '/' + p.inversePermittivity.map((c) => `${c.re},${c.im}`).join(';');
+  }
 }
 
 /** The index of a profile that is in fact homogeneous, else null. */

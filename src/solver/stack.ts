@@ -43,20 +43,19 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
   for (let j = L; j >= 0; j--) {
     const upper = media[j]!;
     const lower = media[j + 1]!;
+    // interface matrices T = W_j⁻¹·W_{j+1}, U = V_j⁻¹·V_{j+1}: they depend on the two media only,
+    // so a thickness sweep with cached modes computes them once
+    const { T, U } = interfaceMatrices(upper, lower);
     if (rTop === null) {
-      setIdentity(tmp);
-      lower.mulW(F, tmp);
-      lower.mulV(G, tmp);
+      F.data.set(T.data); // A = T
+      G.data.set(U.data); // B = U
     } else {
-      // F = W(I + R'), G = V(I − R')
-      addIdentity(tmp, rTop, 1, 1);
-      lower.mulW(F, tmp);
-      addIdentity(tmp, rTop, 1, -1);
-      lower.mulV(G, tmp);
+      // A = T·(I + R') = T + T·R', B = U·(I − R') = U − U·R'
+      F.data.set(T.data);
+      zgemm(F, T, rTop, [1, 0], [1, 0]);
+      G.data.set(U.data);
+      zgemm(G, U, rTop, [-1, 0], [1, 0]);
     }
-    upper.solveW(F, F); // A
-    upper.solveV(G, G); // B
-    // S = (A + B)/2 into tmp, Δ = (A − B)/2 into F
     // Sᵀ = (A + B)ᵀ/2 into tmp and Δ = (A − B)/2 into F, or Δᵀ into tmp2 when R is needed: the
     // factors of Sᵀ give R = Δ·S⁻¹ as (S⁻ᵀ·Δᵀ)ᵀ, an ordinary left solve (the fast kernel), and
     // S·x = c as a transposed solve on the few incident columns
@@ -108,6 +107,28 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
   return { reflected, transmitted: cur };
 }
 
+const interfaces = new WeakMap<Modes, WeakMap<Modes, { T: CMatrix; U: CMatrix }>>();
+
+/** T = W_upper⁻¹·W_lower and U = V_upper⁻¹·V_lower, remembered per pair of mode objects. */
+function interfaceMatrices(upper: Modes, lower: Modes): { T: CMatrix; U: CMatrix } {
+  let row = interfaces.get(upper);
+  if (!row) {
+    row = new WeakMap();
+    interfaces.set(upper, row);
+  }
+  let e = row.get(lower);
+  if (!e) {
+    const n = upper.n;
+    const T = lower.denseW(cmatrix(n, n));
+    upper.solveW(T, T);
+    const U = lower.denseV(cmatrix(n, n));
+    upper.solveV(U, U);
+    e = { T, U };
+    row.set(lower, e);
+  }
+  return e;
+}
+
 function transposeInto(out: CMatrix, a: Readonly<CMatrix>): void {
   const n = a.rows;
   const o = out.data;
@@ -120,20 +141,6 @@ function transposeInto(out: CMatrix, a: Readonly<CMatrix>): void {
       o[q + 1] = d[p + 1]!;
     }
   }
-}
-
-function setIdentity(m: CMatrix): void {
-  m.data.fill(0);
-  for (let i = 0; i < m.rows; i++) m.data[2 * (i * m.cols + i)] = 1;
-}
-
-/** out = a·I + s·R */
-function addIdentity(out: CMatrix, r: Readonly<CMatrix>, a: number, s: number): void {
-  const n = r.rows;
-  const o = out.data;
-  const d = r.data;
-  for (let p = 0; p < o.length; p++) o[p] = s * d[p]!;
-  for (let i = 0; i < n; i++) o[2 * (i * n + i)] += a;
 }
 
 /** exp(i·q·d) per mode. */
