@@ -48,62 +48,13 @@ interface Raw {
  *       { wavelengthUm: 0.6, thetaDeg: 0 }, { orders: 2 }).s.R; // → 0.04
  */
 export function solve(structure: Structure, incidence: Incidence, options: SolveOptions, cache?: ModeCache): SolveResult {
-  validateProblem(structure, incidence, options);
-  const { min: mMin, max: mMax } = typeof options.orders === 'number' ? { min: -options.orders, max: options.orders } : options.orders;
-  const N = mMax - mMin + 1;
-  const lambda = incidence.wavelengthUm;
-  const theta = incidence.thetaDeg * DEG;
-  const phi = (incidence.phiDeg ?? 0) * DEG;
-  const nc = structure.cover.re;
-  const kx0 = nc * Math.sin(theta) * Math.cos(phi);
-  const ky = incidence.phiDeg ? nc * Math.sin(theta) * Math.sin(phi) : 0;
-  const classical = ky === 0 && (incidence.phiDeg ?? 0) === 0 && options.formulation !== 'conical';
-  const K = lambda / structure.periodUm; // grating vector / k0
-  const kx = new Float64Array(N);
-  const orders: number[] = [];
-  for (let i = 0; i < N; i++) {
-    kx[i] = kx0 + (mMin + i) * K;
-    orders.push(mMin + i);
-  }
-  const i0 = -mMin; // index of order 0
-  const az: [number, number] = [Math.cos(phi), Math.sin(phi)];
-  const k0 = (2 * Math.PI) / lambda;
-  const factorization = options.factorization ?? 'inverse';
-  const hermitian = options.hermitian ?? true;
-  const epsCover = permittivityOf(structure.cover);
-  const epsSub = permittivityOf(structure.substrate);
-
-  const families: Family[] = classical ? ['TE', 'TM'] : ['conical'];
+  const setup = setupProblem(structure, incidence, options);
+  const { families, kx, ky, orders, epsCover, epsSub, nc, theta, az, classical } = setup;
   // identical layers share their modes within this solve even without a cache
   const store = cache ?? new ModeCache(structure.layers.length + 2);
-  const waveKey = `${factorization}|${hermitian}|${ky}|${az[0]},${az[1]}|${Array.prototype.join.call(kx, ',')}`;
   const raws: Raw[] = []; // [s, p]
   for (const family of families) {
-    const half = (eps: [number, number]): Modes => store.get(`${family}|${waveKey}|h:${eps[0]},${eps[1]}`, () => homogeneousModes(eps, kx, ky, family, az));
-    const media: Modes[] = [half(epsCover)];
-    const thickness: number[] = [0];
-    structure.layers.forEach((layer, li) => {
-      try {
-        const key = `${family}|${waveKey}|${profileKey(layer.profile)}`;
-        media.push(store.get(key, () => layerModes(layer.profile, kx, ky, family, az, factorization, hermitian)));
-      } catch (e) {
-        throw numerical(e, li, incidence, family);
-      }
-      thickness.push(k0 * layer.thicknessUm);
-    });
-    media.push(half(epsSub));
-    thickness.push(0);
-    const n = media[0]!.n;
-    // incident mode amplitudes: classical TE (Ey = 1) is s; classical TM (Hy = n_c) is p;
-    // conical s/p modes of the cover are the s/p unit vectors themselves
-    const cols = family === 'conical' ? 2 : 1;
-    const inc = cmatrix(n, cols);
-    if (family === 'TE') inc.data[2 * i0] = 1;
-    else if (family === 'TM') inc.data[2 * i0] = nc;
-    else {
-      inc.data[2 * (i0 * 2)] = 1; // s-mode of order 0, column 0
-      inc.data[2 * ((N + i0) * 2 + 1)] = 1; // p-mode of order 0, column 1
-    }
+    const { media, thickness, inc } = familyMedia(setup, structure, incidence, family, store);
     let res;
     try {
       res = solveStack(media, thickness, inc);
@@ -112,7 +63,7 @@ export function solve(structure: Structure, incidence: Incidence, options: Solve
     }
     const cover = media[0]!;
     const sub = media[media.length - 1]!;
-    for (let col = 0; col < cols; col++) {
+    for (let col = 0; col < inc.cols; col++) {
       raws.push({
         refl: tangential(cover, res.reflected, col, family, -1),
         trans: tangential(sub, res.transmitted, col, family, +1),
@@ -145,6 +96,109 @@ export function solve(structure: Structure, incidence: Incidence, options: Solve
     p: pResp,
     ...(requested ? { requested } : {}),
   };
+}
+
+/** @internal What solve() and nearField() derive from the input before any eigensolve. */
+export interface Setup {
+  readonly N: number;
+  /** index of order 0 in the retained list */
+  readonly i0: number;
+  readonly kx: Float64Array;
+  readonly ky: number;
+  readonly orders: number[];
+  readonly classical: boolean;
+  readonly families: Family[];
+  readonly k0: number;
+  readonly nc: number;
+  readonly theta: number;
+  readonly az: [number, number];
+  readonly epsCover: [number, number];
+  readonly epsSub: [number, number];
+  readonly factorization: 'inverse' | 'laurent';
+  readonly hermitian: boolean;
+  readonly waveKey: string;
+}
+
+/** @internal Validate and derive the orders' wavevectors (normalized by k0). */
+export function setupProblem(structure: Structure, incidence: Incidence, options: SolveOptions): Setup {
+  validateProblem(structure, incidence, options);
+  const { min: mMin, max: mMax } = typeof options.orders === 'number' ? { min: -options.orders, max: options.orders } : options.orders;
+  const N = mMax - mMin + 1;
+  const lambda = incidence.wavelengthUm;
+  const theta = incidence.thetaDeg * DEG;
+  const phi = (incidence.phiDeg ?? 0) * DEG;
+  const nc = structure.cover.re;
+  const kx0 = nc * Math.sin(theta) * Math.cos(phi);
+  const ky = incidence.phiDeg ? nc * Math.sin(theta) * Math.sin(phi) : 0;
+  const classical = ky === 0 && (incidence.phiDeg ?? 0) === 0 && options.formulation !== 'conical';
+  const K = lambda / structure.periodUm; // grating vector / k0
+  const kx = new Float64Array(N);
+  const orders: number[] = [];
+  for (let i = 0; i < N; i++) {
+    kx[i] = kx0 + (mMin + i) * K;
+    orders.push(mMin + i);
+  }
+  const az: [number, number] = [Math.cos(phi), Math.sin(phi)];
+  const factorization = options.factorization ?? 'inverse';
+  const hermitian = options.hermitian ?? true;
+  return {
+    N,
+    i0: -mMin,
+    kx,
+    ky,
+    orders,
+    classical,
+    families: classical ? ['TE', 'TM'] : ['conical'],
+    k0: (2 * Math.PI) / lambda,
+    nc,
+    theta,
+    az,
+    epsCover: permittivityOf(structure.cover),
+    epsSub: permittivityOf(structure.substrate),
+    factorization,
+    hermitian,
+    waveKey: `${factorization}|${hermitian}|${ky}|${az[0]},${az[1]}|${Array.prototype.join.call(kx, ',')}`,
+  };
+}
+
+/**
+ * @internal The media (cover, layers, substrate) of one field family with their normalized
+ * thicknesses, and the incident mode amplitudes: one column (TE or TM) in the classical mount,
+ * two (s, p) in conical incidence.
+ */
+export function familyMedia(
+  setup: Setup,
+  structure: Structure,
+  incidence: Incidence,
+  family: Family,
+  store: ModeCache,
+): { media: Modes[]; thickness: number[]; inc: CMatrix } {
+  const { kx, ky, az, waveKey, factorization, hermitian, k0, i0, N, nc } = setup;
+  const half = (eps: [number, number]): Modes => store.get(`${family}|${waveKey}|h:${eps[0]},${eps[1]}`, () => homogeneousModes(eps, kx, ky, family, az));
+  const media: Modes[] = [half(setup.epsCover)];
+  const thickness: number[] = [0];
+  structure.layers.forEach((layer, li) => {
+    try {
+      const key = `${family}|${waveKey}|${profileKey(layer.profile)}`;
+      media.push(store.get(key, () => layerModes(layer.profile, kx, ky, family, az, factorization, hermitian)));
+    } catch (e) {
+      throw numerical(e, li, incidence, family);
+    }
+    thickness.push(k0 * layer.thicknessUm);
+  });
+  media.push(half(setup.epsSub));
+  thickness.push(0);
+  const n = media[0]!.n;
+  // incident mode amplitudes: classical TE (Ey = 1) is s; classical TM (Hy = n_c) is p;
+  // conical s/p modes of the cover are the s/p unit vectors themselves
+  const inc = cmatrix(n, family === 'conical' ? 2 : 1);
+  if (family === 'TE') inc.data[2 * i0] = 1;
+  else if (family === 'TM') inc.data[2 * i0] = nc;
+  else {
+    inc.data[2 * (i0 * 2)] = 1; // s-mode of order 0, column 0
+    inc.data[2 * ((N + i0) * 2 + 1)] = 1; // p-mode of order 0, column 1
+  }
+  return { media, thickness, inc };
 }
 
 function layerModes(
@@ -359,7 +413,8 @@ function orderResults(
   return all;
 }
 
-function jonesOf(p: 'TE' | 'TM' | Jones): Jones {
+/** @internal The unit-power Jones vector of a polarization. */
+export function jonesOf(p: 'TE' | 'TM' | Jones): Jones {
   if (p === 'TE') return { s: { re: 1, im: 0 }, p: { re: 0, im: 0 } };
   if (p === 'TM') return { s: { re: 0, im: 0 }, p: { re: 1, im: 0 } };
   const norm = Math.sqrt(p.s.re ** 2 + p.s.im ** 2 + p.p.re ** 2 + p.p.im ** 2);

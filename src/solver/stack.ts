@@ -22,6 +22,12 @@ export interface StackResult {
   readonly reflected: CMatrix;
   /** forward amplitudes in the substrate at the last interface */
   readonly transmitted: CMatrix;
+  /**
+   * With `keepInterior`: for each layer 1…L (index j − 1), the forward amplitudes at its top and
+   * the backward amplitudes at its bottom, from which the field anywhere inside follows with
+   * propagation factors of modulus ≤ 1.
+   */
+  readonly interior?: ReadonlyArray<{ readonly forwardTop: CMatrix; readonly backwardBottom: CMatrix }>;
 }
 
 /**
@@ -29,10 +35,12 @@ export interface StackResult {
  * @param thickness normalized thicknesses k0·d of media[1 … L] (index 0 and L+1 unused).
  * @param incident n×c forward amplitudes in the cover at z = 0.
  */
-export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray<number>, incident: Readonly<CMatrix>): StackResult {
+export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray<number>, incident: Readonly<CMatrix>, keepInterior = false): StackResult {
   const L = media.length - 2;
   const n = media[0]!.n;
   const lus: LUFactors[] = new Array(L + 1);
+  // reflection matrices at the bottom of each layer, kept only for interior fields
+  const rBottom: CMatrix[] = new Array(L + 1);
   let delta0: CMatrix | null = null;
   // R' at the top of the medium below the current interface; null means zero (substrate)
   let rTop: CMatrix | null = null;
@@ -91,6 +99,7 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
     zgetrs(lus[j]!, tmp2, tmp2);
     const r: CMatrix = rTop ?? cmatrix(n, n);
     transposeInto(r, tmp2);
+    if (keepInterior) rBottom[j] = { rows: n, cols: n, data: r.data.slice() };
     const x = phase(upper.q, thickness[j]!);
     scaleBoth(r, x);
     rTop = r;
@@ -99,12 +108,15 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
   const c = incident.cols;
   let cur = zgetrsT(lus[0]!, incident) as CMatrix;
   const reflected = zgemm(cmatrix(n, c), delta0!, cur);
+  const interior: Array<{ forwardTop: CMatrix; backwardBottom: CMatrix }> = [];
   for (let j = 1; j <= L; j++) {
+    const forwardTop = keepInterior ? { rows: n, cols: c, data: cur.data.slice() } : null;
     const x = phase(media[j]!.q, thickness[j]!);
     scaleRowsBy(cur, x);
+    if (forwardTop) interior.push({ forwardTop, backwardBottom: zgemm(cmatrix(n, c), rBottom[j]!, cur) });
     cur = zgetrsT(lus[j]!, cur, cur) as CMatrix;
   }
-  return { reflected, transmitted: cur };
+  return keepInterior ? { reflected, transmitted: cur, interior } : { reflected, transmitted: cur };
 }
 
 const interfaces = new WeakMap<Modes, WeakMap<Modes, { T: CMatrix; U: CMatrix }>>();
