@@ -3,3 +3,5 @@ export * from './types.ts';
 export * from './errors.ts';
 export { solve, SOLVER_VERSION } from './solve.ts';
 export { ModeCache } from './cache.ts';
+export { nearField } from './fields.ts';
+export type { FieldGrid, FieldPeak, NearField } from './fields.ts';
