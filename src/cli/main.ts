@@ -9,6 +9,7 @@ import { InputError, parseDesign, type Problem } from '../design/index.ts';
 import { SolverError, solve, SOLVER_VERSION } from '../solver/index.ts';
 import { describeProblem, orderTable } from './format.ts';
 import { ordersReport } from './orders.ts';
+import { registerFieldsCommand } from './fields.ts';
 import { demoDesign } from './demo.ts';
 import { MaterialError, MaterialLibrary } from '../materials/index.ts';
 import { materialsList, materialsShow } from './materials.ts';
@@ -110,6 +111,9 @@ export function buildProgram(out: (s: string) => void): Command {
       });
       for (const l of lines) out(l);
     });
+  registerFieldsCommand(program, out, loadDesign, (msg) => {
+    throw new CliFailure(msg);
+  });
   program
     .command('schema')
     .description('print the design file\'s JSON Schema (for editor completion and validation)')

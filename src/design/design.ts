@@ -61,6 +61,8 @@ export interface Problem {
   readonly warnings: ReadonlyArray<string>;
   /** facts about how the design was built (slice count, derived depth …) */
   readonly notes: ReadonlyArray<string>;
+  /** every material of the problem with its index at the wavelength */
+  readonly materials: ReadonlyArray<{ readonly name: string; readonly index: Complex }>;
 }
 
 /** Turn zod issues into one readable line per problem. */
@@ -234,6 +236,7 @@ export function problemAt(model: DesignModel, wavelengthUm: number = model.incid
     incidence,
     options: { orders: model.orders, factorization: model.factorization, ...(model.allowGain ? { allowGain: true } : {}) },
     warnings: [...new Set(warnings)],
+    materials: [...cache.entries()].map(([name, index]) => ({ name, index })),
     notes: [...model.notes, ...new Set(materialNotes), ...(model.slices !== null ? [`profile sliced into ${model.slices} layer${model.slices === 1 ? '' : 's'}`] : [])],
   };
 }

@@ -130,3 +130,26 @@ describe('designs with user material tables', () => {
     expect(r.text).toMatch(/note\s+sapphire: .*ordinary index/);
   });
 });
+
+describe('furrow fields', () => {
+  it('reports the peak |E|² per material with the laser caution, and writes the grid', async () => {
+    // bare glass at normal incidence: the standing wave in air peaks at (1 + |r|)² = 1.44 (Fresnel, r = −0.2)
+    const glass = write('glass-fields.json', { period: '1 um', substrate: 1.5, incidence: { wavelength: '600 nm' }, orders: 2 });
+    const csv = join(dir, 'fields.csv');
+    const r = await run('fields', glass, '--output', csv, '--nx', '8', '--periods', '1');
+    expect(r.code).toBe(0);
+    const peak = Number(/^air\s+([\d.]+)/m.exec(r.text)![1]);
+    expect(Math.abs(peak - 1.44)).toBeLessThan(2e-3); // sampled on a grid of λ/100
+    expect(r.text).toMatch(/caution: field-enhancement figures are design estimates, not laser-damage thresholds/);
+    const { readFileSync } = await import('node:fs');
+    const lines = readFileSync(csv, 'utf8').trim().split('\n');
+    expect(lines[0]).toBe('x_nm,z_nm,region,E2,Ex_re,Ex_im,Ey_re,Ey_im,Ez_re,Ez_im,Hx_re,Hx_im,Hy_re,Hy_im,Hz_re,Hz_im');
+    expect(lines.length).toBeGreaterThan(100);
+  });
+  it('refuses a bad polarization', async () => {
+    const glass = write('glass-fields2.json', { period: '1 um', substrate: 1.5, incidence: { wavelength: '600 nm' }, orders: 2 });
+    const r = await run('fields', glass, '--pol', 'XY');
+    expect(r.code).toBe(2);
+    expect(r.text).toMatch(/--pol: expected TE or TM/);
+  });
+});
