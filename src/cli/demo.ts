@@ -5,3 +5,8 @@ import example from '../design/examples/blazed-aluminium-spectrometer.json' with
 export function demoDesign(): Problem {
   return designToProblem(example);
 }
+
+/** The demo design as its raw JSON object. */
+export function demoDesignRaw(): unknown {
+  return example;
+}

@@ -2,7 +2,7 @@
 import type { OrderResult, Response, SolveResult } from '../solver/index.ts';
 import type { Problem } from '../design/index.ts';
 
-const f = (x: number, d = 6): string => (Number.isFinite(x) ? x.toFixed(d) : String(x));
+const f = (x: number, d = 6): string => (Number.isFinite(x) ? (Math.abs(x) < 0.5 * 10 ** -d ? 0 : x).toFixed(d) : String(x));
 const pad = (s: string, w: number): string => s.padStart(w);
 
 /** Header lines describing the problem. */

@@ -5,15 +5,16 @@
 import { readFileSync } from 'node:fs';
 import { dirname, resolve } from 'node:path';
 import { Command, CommanderError } from 'commander';
-import { InputError, parseDesign, type Problem } from '../design/index.ts';
-import { SolverError, solve, SOLVER_VERSION } from '../solver/index.ts';
+import { InputError, type Problem } from '../design/index.ts';
+import { SolverError, SOLVER_VERSION } from '../solver/index.ts';
 import { describeProblem, orderTable } from './format.ts';
 import { ordersReport } from './orders.ts';
 import { registerFieldsCommand } from './fields.ts';
-import { demoDesign } from './demo.ts';
+import { demoDesignRaw } from './demo.ts';
 import { MaterialError, MaterialLibrary } from '../materials/index.ts';
 import { materialsList, materialsShow } from './materials.ts';
-import { designJsonSchema, lengthUm } from '../design/index.ts';
+import { designJsonSchema, designToModel, lengthUm, problemAt } from '../design/index.ts';
+import { type ConvergedResult, solveConverged } from '../optimize/index.ts';
 
 /** A user-facing failure: message and exit code. */
 export class CliFailure extends Error {
@@ -25,32 +26,53 @@ export class CliFailure extends Error {
   }
 }
 
-function loadDesign(path: string): Problem {
+/** The design file's object and a reader for files it names (relative to it). */
+function readDesign(path: string): { raw: unknown; readText: (file: string) => string } {
   let text: string;
   try {
     text = readFileSync(path, 'utf8');
   } catch (e) {
     throw new CliFailure(`cannot read design file ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
   }
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch (e) {
+    throw new InputError(path, `not valid JSON: ${(e as Error).message}`);
+  }
   const dir = dirname(resolve(path));
-  return parseDesign(text, path, (file) => readFileSync(resolve(dir, file), 'utf8'));
+  return { raw, readText: (file) => readFileSync(resolve(dir, file), 'utf8') };
 }
 
-function withOverrides(p: Problem, opts: { orders?: string }): Problem {
-  if (opts.orders === undefined) return p;
-  const M = Number(opts.orders);
-  if (!(Number.isInteger(M) && M >= 0 && M <= 1000)) throw new CliFailure(`--orders: expected an integer 0…1000, found "${opts.orders}"`);
-  return { ...p, options: { ...p.options, orders: M } };
+function loadDesign(path: string): Problem {
+  const { raw, readText } = readDesign(path);
+  return problemAt(designToModel(raw, readText));
 }
 
-function runSolve(p: Problem, json: boolean, out: (s: string) => void): void {
-  const t0 = performance.now();
-  const r = solve(p.structure, p.incidence, p.options);
-  const ms = performance.now() - t0;
+function parseLevel(flag: string, v: string | undefined, max: number): 'auto' | number | undefined {
+  if (v === undefined || v === 'auto') return v;
+  const n = Number(v);
+  if (!(Number.isInteger(n) && n >= 0 && n <= max)) throw new CliFailure(`${flag}: expected "auto" or an integer 0…${max}, found "${v}"`);
+  return n;
+}
+
+const sci = (x: number): string => (Number.isNaN(x) ? '—' : x.toExponential(1));
+
+function runSolve(c: ConvergedResult, ms: number, json: boolean, out: (s: string) => void): void {
+  const p = c.problem;
+  const r = c.result;
+  const convergence = {
+    orders: c.orders,
+    slices: c.slices,
+    ordersChange: Number.isNaN(c.ordersChange) ? null : c.ordersChange,
+    slicesChange: Number.isNaN(c.slicesChange) ? null : c.slicesChange,
+    converged: c.converged,
+    history: c.history.map((h) => ({ ...h, change: Number.isNaN(h.change) ? null : h.change })),
+  };
   if (json) {
     out(
       JSON.stringify(
-        { input: { title: p.title, structure: p.structure, incidence: p.incidence, options: p.options }, notes: p.notes, warnings: p.warnings, result: r },
+        { input: { title: p.title, structure: p.structure, incidence: p.incidence, options: p.options }, notes: p.notes, warnings: p.warnings, convergence, result: r },
         null,
         2,
       ),
@@ -62,8 +84,21 @@ function runSolve(p: Problem, json: boolean, out: (s: string) => void): void {
   out('');
   for (const l of orderTable(r)) out(l);
   out('');
+  const ord = Number.isNaN(c.ordersChange) ? `orders −${c.orders}…${c.orders} (fixed; --orders auto estimates the error)` : `orders −${c.orders}…${c.orders}, last change ${sci(c.ordersChange)}`;
+  const sl = c.slices === null ? '' : Number.isNaN(c.slicesChange) ? `; slices ${c.slices} (fixed; --slices auto estimates the error)` : `; slices ${c.slices}, last change ${sci(c.slicesChange)}`;
+  out(`convergence ${ord}${sl}${c.converged ? '' : ' — NOT converged at the ceiling'}`);
   for (const w of p.warnings) out(`warning: ${w}`);
-  out(`solved in ${ms.toFixed(1)} ms (furrow ${SOLVER_VERSION})`);
+  out(`solved in ${ms.toFixed(1)} ms (${c.history.length} solve${c.history.length === 1 ? '' : 's'}, furrow ${SOLVER_VERSION})`);
+}
+
+function solveCommand(raw: unknown, readText: ((f: string) => string) | undefined, o: { json?: boolean; orders?: string; slices?: string; tolerance?: string }, out: (s: string) => void): void {
+  const orders = parseLevel('--orders', o.orders ?? 'auto', 1000);
+  const slices = parseLevel('--slices', o.slices, 1000);
+  const tolerance = o.tolerance === undefined ? 1e-4 : Number(o.tolerance);
+  if (!(tolerance > 0 && tolerance < 1)) throw new CliFailure(`--tolerance: expected an absolute efficiency tolerance in (0, 1), found "${o.tolerance}"`);
+  const t0 = performance.now();
+  const c = solveConverged(raw, { ...(orders !== undefined ? { orders } : {}), ...(slices !== undefined ? { slices } : {}), tolerance }, readText);
+  runSolve(c, performance.now() - t0, !!o.json, out);
 }
 
 export function buildProgram(out: (s: string) => void): Command {
@@ -79,8 +114,13 @@ export function buildProgram(out: (s: string) => void): Command {
     .description('efficiency, angle and amplitude of every propagating order, TE and TM, with R, T and A')
     .argument('<design>', 'design file (JSON)')
     .option('--json', 'print the full result as JSON (schema in README)')
-    .option('--orders <M>', 'retain orders −M…M (overrides the design file)')
-    .action((design: string, opts: { json?: boolean; orders?: string }) => runSolve(withOverrides(loadDesign(design), opts), !!opts.json, out));
+    .option('--orders <M|auto>', 'retain orders −M…M, or "auto": raise them from the design\'s until converged (default auto)')
+    .option('--slices <N|auto>', 'slices of the profile, or "auto": double them until converged (default: the design\'s)')
+    .option('--tolerance <abs>', 'convergence tolerance on every efficiency (default 1e-4)')
+    .action((design: string, opts: { json?: boolean; orders?: string; slices?: string; tolerance?: string }) => {
+      const { raw, readText } = readDesign(design);
+      solveCommand(raw, readText, opts, out);
+    });
   program
     .command('orders')
     .description('grating-equation summary: order directions, Rayleigh anomalies, Littrow angles')
@@ -124,7 +164,7 @@ export function buildProgram(out: (s: string) => void): Command {
     .action(() => {
       out('Furrow demo: a blazed, aluminium-coated reflection grating for a visible spectrometer, TE and TM.');
       out('');
-      runSolve(demoDesign(), false, out);
+      solveCommand(demoDesignRaw(), undefined, {}, out);
     });
   return program;
 }

@@ -1,0 +1,284 @@
+/**
+ * Runs a block of a sweep's points on a pool of worker threads (piscina) and hands back every
+ * row, in whatever order points finish. Prints nothing: the caller writes rows and shows progress.
+ * With one worker the points run on the calling thread instead (no thread start-up, which costs
+ * a second or more per thread, mostly loading the unit library).
+ *
+ * - Points go out in contiguous batches. The first batches hold one point each; after that a batch
+ *   is sized to take about TARGET_BATCH_MS on one thread (so per-task overhead stays far below 1 %),
+ *   but never so large that a thread would sit idle at the end of the run.
+ * - Each thread keeps one evaluation context for the whole run, so the engine's caches work across
+ *   batches; contiguous batches keep neighbouring points, which share most work, on one thread.
+ * - The pool never runs further ahead of the first unfinished point than `maxAhead` points, so the
+ *   rows held back for in-order writing stay few.
+ * - A batch whose thread dies (process.exit, a crash) or that throws is run again once; if it fails
+ *   again its points run one by one, and a point that still fails becomes a row with status
+ *   'failed' and the reason. The run goes on.
+ * - `stop` ends dispatching; batches already running finish and are delivered. `abort` also
+ *   cancels running batches (their threads are terminated).
+ */
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { Piscina } from 'piscina';
+import { createEvalContext, evaluatePoint, pointAt } from '../sweep/index.ts';
+import type { SweepPlan, SweepRow } from '../sweep/types.ts';
+import { unpackRows, type BatchResult, type BatchTask, type WorkerSetup } from './sweep-protocol.ts';
+
+/** The worker threads' entry (a .mjs that loads the TypeScript handler). */
+export const WORKER_ENTRY = fileURLToPath(new URL('../../workers/sweep-worker.mjs', import.meta.url));
+
+/** A batch aims at this much work on one thread. */
+export const TARGET_BATCH_MS = 150;
+/** … and holds at most this many points. */
+export const MAX_BATCH = 512;
+
+export interface PoolRunOptions {
+  readonly plan: SweepPlan;
+  /** directory of the design file (files it names are read relative to it) */
+  readonly baseDir: string;
+  /** points first … end−1 are evaluated */
+  readonly first: number;
+  readonly end: number;
+  /** worker threads (≥ 1); never more than there are points */
+  readonly workers: number;
+  /** fixed batch size; default: sized from measured time per point */
+  readonly batch?: number;
+  /** every row, once, in any order; may throw (e.g. a full disk): the run then stops and rejects with that error */
+  readonly onRow: (row: SweepRow) => void;
+  /** after each batch: points evaluated so far in this run */
+  readonly onProgress?: (evaluated: number) => void;
+  /** the first index whose row is not yet written; dispatch stays within maxAhead of it */
+  readonly frontier?: () => number;
+  readonly maxAhead?: number;
+  /** stop dispatching; running batches finish */
+  readonly stop?: AbortSignal;
+  /** stop at once: running batches are cancelled */
+  readonly abort?: AbortSignal;
+}
+
+export interface PoolRunSummary {
+  /** points whose rows were delivered (including rows failed after a worker fault) */
+  readonly delivered: number;
+  /** batches run again after a worker fault */
+  readonly retriedBatches: number;
+  /** points reported failed because their worker kept failing on them */
+  readonly workerFailedPoints: number;
+  /** true when stop or abort ended the run before every point was delivered */
+  readonly interrupted: boolean;
+}
+
+/** A worker that cannot evaluate anything (e.g. the engine fails to load). */
+export class SweepWorkerError extends Error {
+  override readonly name = 'SweepWorkerError';
+}
+
+interface Work extends BatchTask {
+  /** 0: first try; 1: retry of the batch; 2: a point alone after its batch failed twice */
+  readonly attempt: 0 | 1 | 2;
+}
+
+/** The row of a point whose worker kept failing: its index and axis values, status 'failed', the reason. */
+export function workerFailedRow(plan: SweepPlan, index: number, reason: string): SweepRow {
+  const cells: (number | string)[] = plan.columns.map(() => '');
+  const at = (name: string): number => plan.columns.indexOf(name);
+  if (at('point_index') >= 0) cells[at('point_index')] = index;
+  const p = pointAt(plan, index);
+  plan.axes.forEach((a, k) => {
+    const j = at(a.column);
+    if (j >= 0) cells[j] = p.values[k]!;
+  });
+  if (at('status') >= 0) cells[at('status')] = 'failed';
+  if (at('error') >= 0) cells[at('error')] = reason;
+  return { index, status: 'failed', cells, error: reason };
+}
+
+function messageOf(e: unknown): string {
+  return e instanceof Error ? e.message : String(e);
+}
+
+/**
+ * One worker: points are evaluated on this (the main) thread, no worker threads are started.
+ * Work goes in slices of about TARGET_BATCH_MS, between which the event loop runs (signals,
+ * output). A point whose evaluation throws (a fault, not the point's own failure, which is a
+ * row) is tried once more with a fresh context, then reported failed.
+ */
+async function runInProcess(o: PoolRunOptions): Promise<PoolRunSummary> {
+  const readText = (file: string): string => readFileSync(resolve(o.baseDir, file), 'utf8');
+  let ctx = createEvalContext();
+  let delivered = 0;
+  let retried = 0;
+  let workerFailedPoints = 0;
+  const halted = (): boolean => !!(o.stop?.aborted || o.abort?.aborted);
+  let i = o.first;
+  while (i < o.end && !halted()) {
+    const t0 = performance.now();
+    const limit = o.batch ?? Number.POSITIVE_INFINITY;
+    for (let k = 0; i < o.end && k < limit && (o.batch !== undefined || k === 0 || performance.now() - t0 < TARGET_BATCH_MS); k++, i++) {
+      let row: SweepRow;
+      try {
+        row = evaluatePoint(o.plan, i, ctx, readText);
+      } catch {
+        retried++;
+        ctx = createEvalContext();
+        try {
+          row = evaluatePoint(o.plan, i, ctx, readText);
+        } catch (e2) {
+          workerFailedPoints++;
+          row = workerFailedRow(o.plan, i, `evaluation failed on this point, also when retried: ${messageOf(e2)}`);
+        }
+      }
+      o.onRow(row);
+      delivered++;
+    }
+    o.onProgress?.(delivered);
+    await new Promise<void>((r) => setImmediate(r));
+  }
+  return { delivered, retriedBatches: retried, workerFailedPoints, interrupted: i < o.end };
+}
+
+/** Evaluate points first … end−1: on this thread for one worker, else on a pool of worker threads. */
+export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
+  const total = o.end - o.first;
+  if (total <= 0) return { delivered: 0, retriedBatches: 0, workerFailedPoints: 0, interrupted: false };
+  const threads = Math.max(1, Math.min(Math.floor(o.workers), total));
+  if (threads === 1) return runInProcess(o);
+  const setup: WorkerSetup = { plan: o.plan, baseDir: o.baseDir };
+  const pool = new Piscina<BatchTask, BatchResult>({
+    filename: WORKER_ENTRY,
+    minThreads: threads,
+    maxThreads: threads,
+    idleTimeout: 60_000,
+    concurrentTasksPerWorker: 1,
+    workerData: setup,
+  });
+  const cancel = new AbortController();
+  const maxInflight = 2 * threads;
+  const retry: Work[] = [];
+  let cursor = o.first;
+  let inflight = 0;
+  let delivered = 0;
+  let retriedBatches = 0;
+  let workerFailedPoints = 0;
+  let successes = 0;
+  let faults = 0;
+  let msPerPoint: number | null = null;
+  let stopped = false;
+  let fatal: unknown = null;
+  let finish!: () => void;
+  const finished = new Promise<void>((r) => (finish = r));
+
+  const onStop = (): void => {
+    stopped = true;
+    pump();
+  };
+  const onAbort = (): void => {
+    stopped = true;
+    cancel.abort();
+    pump();
+  };
+  o.stop?.addEventListener('abort', onStop);
+  o.abort?.addEventListener('abort', onAbort);
+  if (o.stop?.aborted) stopped = true;
+  if (o.abort?.aborted) onAbort();
+
+  function batchSize(): number {
+    const remaining = o.end - cursor;
+    if (o.batch !== undefined) return Math.min(o.batch, remaining);
+    if (msPerPoint === null) return 1;
+    const target = Math.max(1, Math.min(MAX_BATCH, Math.round(TARGET_BATCH_MS / msPerPoint)));
+    const balance = Math.max(1, Math.floor(remaining / (2 * threads)));
+    return Math.min(target, balance, remaining);
+  }
+
+  function nextWork(): Work | null {
+    if (retry.length) return retry.shift()!;
+    if (cursor >= o.end) return null;
+    if (o.frontier && cursor - o.frontier() >= (o.maxAhead ?? Number.POSITIVE_INFINITY)) return null;
+    const count = batchSize();
+    const w: Work = { first: cursor, count, attempt: 0 };
+    cursor += count;
+    return w;
+  }
+
+  function deliver(rows: SweepRow[]): void {
+    for (const r of rows) o.onRow(r);
+    delivered += rows.length;
+    o.onProgress?.(delivered);
+  }
+
+  function fail(w: Work, e: unknown): void {
+    faults++;
+    const reason = messageOf(e);
+    if (successes === 0 && faults >= 6) {
+      fatal = new SweepWorkerError(`the sweep workers fail before finishing any point: ${reason}`);
+      stopped = true;
+      cancel.abort();
+      return;
+    }
+    if (w.attempt === 0) {
+      retriedBatches++;
+      retry.unshift({ ...w, attempt: 1 });
+    } else if (w.count > 1) {
+      const singles: Work[] = [];
+      for (let i = w.first; i < w.first + w.count; i++) singles.push({ first: i, count: 1, attempt: 2 });
+      retry.unshift(...singles);
+    } else {
+      workerFailedPoints++;
+      deliver([workerFailedRow(o.plan, w.first, `worker failed on this point, also when retried: ${reason}`)]);
+    }
+  }
+
+  function launch(w: Work): void {
+    inflight++;
+    pool.run({ first: w.first, count: w.count }, { signal: cancel.signal }).then(
+      (res) => {
+        inflight--;
+        successes++;
+        const sample = res.ms / Math.max(1, res.count);
+        msPerPoint = msPerPoint === null ? sample : 0.7 * msPerPoint + 0.3 * sample;
+        try {
+          deliver(unpackRows(res));
+        } catch (e) {
+          if (fatal === null) fatal = e;
+          stopped = true;
+          cancel.abort();
+        }
+        pump();
+      },
+      (e: unknown) => {
+        inflight--;
+        if (!cancel.signal.aborted) {
+          try {
+            fail(w, e);
+          } catch (err) {
+            if (fatal === null) fatal = err;
+            stopped = true;
+            cancel.abort();
+          }
+        }
+        pump();
+      },
+    );
+  }
+
+  function pump(): void {
+    while (!stopped && inflight < maxInflight) {
+      const w = nextWork();
+      if (w === null) break;
+      launch(w);
+    }
+    if (inflight === 0 && (stopped || (retry.length === 0 && cursor >= o.end))) finish();
+  }
+
+  try {
+    pump();
+    await finished;
+  } finally {
+    o.stop?.removeEventListener('abort', onStop);
+    o.abort?.removeEventListener('abort', onAbort);
+    await pool.destroy();
+  }
+  if (fatal !== null) throw fatal;
+  return { delivered, retriedBatches, workerFailedPoints, interrupted: delivered < total };
+}

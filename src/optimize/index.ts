@@ -1,0 +1,2 @@
+/** Design answers on top of the solver: convergence control. */
+export * from './converge.ts';
