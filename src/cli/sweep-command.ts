@@ -258,10 +258,11 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
     const rate = writer.written / Math.max(seconds, 1e-9);
     const failedText = result.failed ? `, ${result.failed} failed (status column)` : '';
     const resumed = alreadyDone ? ` (${alreadyDone} were already there)` : '';
+    const retried = retriedBatches ? `; ${retriedBatches} batch${retriedBatches === 1 ? '' : 'es'} run again after a worker fault` : '';
     say(
       writer.written === 0 && alreadyDone > 0
         ? `sweep: ${output} is already complete (${end - first} points${failedText})`
-        : `sweep: ${end - first} points${resumed}${failedText} → ${toStdout ? 'standard output' : output}; ${writer.written} computed in ${seconds.toFixed(1)} s, ${rate.toPrecision(3)} points/s on ${Math.min(workers, Math.max(1, writer.written))} worker${workers === 1 ? '' : 's'}`,
+        : `sweep: ${end - first} points${resumed}${failedText} → ${toStdout ? 'standard output' : output}; ${writer.written} computed in ${seconds.toFixed(1)} s, ${rate.toPrecision(3)} points/s on ${Math.min(workers, Math.max(1, writer.written))} worker${workers === 1 ? '' : 's'}${retried}`,
     );
   }
   return result;

@@ -70,7 +70,8 @@ export function chooseShard(shard: string | undefined, shards: string | undefine
     const m = /^\s*(\w+)\s*\/\s*(\w+)\s*$/.exec(shard);
     if (!m) throw new InputError('--shard', `expected K/N (e.g. 3/16) or auto/N, found "${shard}"`);
     count = positiveInt(m[2]!, 'N', '--shard');
-    index = m[1] === 'auto' ? fromEnvironment(count, env, '--shard') : positiveInt(m[1]!, 'K', '--shard');
+    if (m[1] !== 'auto' && !/^\d+$/.test(m[1]!)) throw new InputError('--shard', `K must be a whole number or auto, found "${m[1]}"`);
+    index = m[1] === 'auto' ? fromEnvironment(count, env, '--shard') : Number(m[1]);
   } else return null;
   if (index < 1 || index > count) throw new InputError(shards !== undefined ? '--shards' : '--shard', `shard ${index} does not exist: shards are numbered 1…${count}`);
   return { index, count };
