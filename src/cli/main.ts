@@ -91,13 +91,24 @@ function runSolve(c: ConvergedResult, ms: number, json: boolean, out: (s: string
   out(`solved in ${ms.toFixed(1)} ms (${c.history.length} solve${c.history.length === 1 ? '' : 's'}, furrow ${SOLVER_VERSION})`);
 }
 
-function solveCommand(raw: unknown, readText: ((f: string) => string) | undefined, o: { json?: boolean; orders?: string; slices?: string; tolerance?: string }, out: (s: string) => void): void {
+function solveCommand(
+  raw: unknown,
+  readText: ((f: string) => string) | undefined,
+  o: { json?: boolean; orders?: string; slices?: string; tolerance?: string; maxOrders?: string },
+  out: (s: string) => void,
+): void {
   const orders = parseLevel('--orders', o.orders ?? 'auto', 1000);
+  const maxOrders = parseLevel('--max-orders', o.maxOrders, 1000);
+  if (maxOrders === 'auto') throw new CliFailure('--max-orders: expected an integer');
   const slices = parseLevel('--slices', o.slices, 1000);
   const tolerance = o.tolerance === undefined ? 1e-4 : Number(o.tolerance);
   if (!(tolerance > 0 && tolerance < 1)) throw new CliFailure(`--tolerance: expected an absolute efficiency tolerance in (0, 1), found "${o.tolerance}"`);
   const t0 = performance.now();
-  const c = solveConverged(raw, { ...(orders !== undefined ? { orders } : {}), ...(slices !== undefined ? { slices } : {}), tolerance }, readText);
+  const c = solveConverged(
+    raw,
+    { ...(orders !== undefined ? { orders } : {}), ...(slices !== undefined ? { slices } : {}), ...(maxOrders !== undefined ? { maxOrders } : {}), tolerance },
+    readText,
+  );
   runSolve(c, performance.now() - t0, !!o.json, out);
 }
 
@@ -117,7 +128,8 @@ export function buildProgram(out: (s: string) => void): Command {
     .option('--orders <M|auto>', 'retain orders −M…M, or "auto": raise them from the design\'s until converged (default auto)')
     .option('--slices <N|auto>', 'slices of the profile, or "auto": double them until converged (default: the design\'s)')
     .option('--tolerance <abs>', 'convergence tolerance on every efficiency (default 1e-4)')
-    .action((design: string, opts: { json?: boolean; orders?: string; slices?: string; tolerance?: string }) => {
+    .option('--max-orders <M>', 'ceiling for --orders auto (default 2.5× the start, at least 40)')
+    .action((design: string, opts: { json?: boolean; orders?: string; slices?: string; tolerance?: string; maxOrders?: string }) => {
       const { raw, readText } = readDesign(design);
       solveCommand(raw, readText, opts, out);
     });
@@ -164,7 +176,7 @@ export function buildProgram(out: (s: string) => void): Command {
     .action(() => {
       out('Furrow demo: a blazed, aluminium-coated reflection grating for a visible spectrometer, TE and TM.');
       out('');
-      solveCommand(demoDesignRaw(), undefined, {}, out);
+      solveCommand(demoDesignRaw(), undefined, { orders: '25' }, out);
     });
   return program;
 }

@@ -17,7 +17,7 @@ export interface ConvergenceOptions {
   readonly orders?: 'auto' | number;
   /** 'auto' to converge in slices (profiles only), or a fixed count, or undefined for the design's */
   readonly slices?: 'auto' | number;
-  /** ceilings: a run that reaches them reports "not converged" */
+  /** ceilings: a run that reaches them reports "not converged" (default orders: 2.5× the start, at least 40) */
   readonly maxOrders?: number;
   readonly maxSlices?: number;
 }
@@ -79,7 +79,6 @@ function startOrders(p: Problem): number {
 export function solveConverged(raw: unknown, options: ConvergenceOptions = {}, readText?: ReadText): ConvergedResult {
   const tol = options.tolerance ?? 1e-4;
   if (!(tol > 0)) throw new RangeError(`tolerance must be > 0, found ${tol}`);
-  const maxOrders = options.maxOrders ?? 200;
   const maxSlices = options.maxSlices ?? 160;
   const base = raw as Record<string, unknown>;
   const withSlices = (S: number | undefined): DesignModel => designToModel(S === undefined ? base : { ...base, slices: S }, readText);
@@ -93,6 +92,7 @@ export function solveConverged(raw: unknown, options: ConvergenceOptions = {}, r
 
   // orders
   let M = typeof options.orders === 'number' ? options.orders : Math.max(model.orders, startOrders(problemAt(model)));
+  const maxOrders = options.maxOrders ?? Math.max(40, Math.ceil(2.5 * M));
   let cur = at(model, M);
   let ordersChange = NaN;
   let converged = true;
