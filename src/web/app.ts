@@ -334,11 +334,17 @@ function refreshSweepChoices(reset: boolean): void {
   fillParamSelect(0);
   fillParamSelect(1);
   if (reset) {
-    // metal-coated and raw designs usually only reflect: start with the reflected orders
+    // a newly opened design starts from every propagating order in every polarization at a fixed
+    // angle; metal-coated gratings only reflect, so they start with the reflected orders
     const raw = state.check?.raw;
     const coated = isObj(raw) && isObj(raw['grating']) && raw['grating']['coating'] !== undefined;
     $<HTMLInputElement>('side-T').checked = !coated;
     $<HTMLInputElement>('side-R').checked = true;
+    for (const p of ['TE', 'TM', 'unpolarized']) $<HTMLInputElement>(`pol-${p}`).checked = true;
+    ui.orders.value = 'all';
+    ui.mount.value = 'fixed';
+    ui.mountOrder.hidden = true;
+    ui.mapColumn.value = '';
   }
 }
 
@@ -390,6 +396,8 @@ function readPanel(): PanelSettings {
 let runTimer = 0;
 function designChanged(): void {
   clearTimeout(runTimer);
+  if (!state.check?.problem && state.plan) ui.sweepMessage.textContent = 'The design has errors (see the design panel): the plots show the last sweep.';
+  else if (ui.sweepMessage.textContent?.startsWith('The design has errors')) ui.sweepMessage.textContent = '';
   if (!ui.autoRun.checked) return;
   runTimer = window.setTimeout(() => {
     if (state.check?.problem) startSweep();
@@ -484,8 +492,8 @@ function fillMapColumns(plan: SweepPlan): void {
   if (!twoD) return;
   const keep = ui.mapColumn.value;
   const cols = readColumns(plan);
-  ui.mapColumn.replaceChildren(...[...cols.eff, ...cols.totals].map((c) => new Option(columnLabel(c), c.name)));
-  if (Array.from(ui.mapColumn.options).some((o) => o.value === keep)) ui.mapColumn.value = keep;
+  ui.mapColumn.replaceChildren(new Option('(the strongest order)', ''), ...[...cols.eff, ...cols.totals].map((c) => new Option(columnLabel(c), c.name)));
+  ui.mapColumn.value = Array.from(ui.mapColumn.options).some((o) => o.value === keep) ? keep : '';
 }
 
 let drawQueued = false;
@@ -505,7 +513,8 @@ function draw(): Promise<void> {
     if (!plan) return;
     const col = plan.columns.indexOf(ui.mapColumn.value);
     try {
-      await drawSweep(ui.plotMain, ui.plotTotals, plan, state.rows, col >= 0 ? col : null);
+      const shown = await drawSweep(ui.plotMain, ui.plotTotals, plan, state.rows, col >= 0 ? col : null);
+      if (shown !== null && state.complete) ui.mapColumn.value = plan.columns[shown] ?? '';
     } catch (e) {
       ui.sweepMessage.textContent = `cannot draw the plot: ${e instanceof Error ? e.message : String(e)}`;
     }

@@ -109,7 +109,8 @@ function baseLayout(xTitle: string, yTitle: string, title: string): Layout {
   return {
     title: { text: title, font: { ...FONT, size: 13 }, x: 0.01, xanchor: 'left' },
     font: FONT,
-    margin: { l: 64, r: 16, t: 36, b: 52 },
+    // a fixed right margin holds the legend, so stacked plots share their x extent
+    margin: { l: 64, r: 130, t: 36, b: 52 },
     paper_bgcolor: '#ffffff',
     plot_bgcolor: '#ffffff',
     hovermode: 'closest',
@@ -123,14 +124,15 @@ function baseLayout(xTitle: string, yTitle: string, title: string): Layout {
  * Draw the sweep's plots (again); `rows[i]` is point i's row or undefined while it is pending.
  * @param mapColumn the column shown in a two-parameter map
  */
-export async function drawSweep(main: HTMLElement, totals: HTMLElement, plan: SweepPlan, rows: ReadonlyArray<SweepRow | undefined>, mapColumn: number | null): Promise<void> {
+export async function drawSweep(main: HTMLElement, totals: HTMLElement, plan: SweepPlan, rows: ReadonlyArray<SweepRow | undefined>, mapColumn: number | null): Promise<number | null> {
   const cols = readColumns(plan);
   if (plan.axes.length >= 2 && plan.combine === 'grid') {
-    await drawMap(main, plan, rows, cols, mapColumn ?? cols.eff[0]?.col ?? cols.totals[0]?.col ?? -1);
+    const col = mapColumn ?? strongest(cols.eff, rows) ?? cols.totals[0]?.col ?? -1;
+    await drawMap(main, plan, rows, cols, col);
     Plotly.purge(totals);
     totals.replaceChildren();
     totals.hidden = true;
-    return;
+    return col;
   }
   totals.hidden = false;
   const x = axisValues(plan, 0);
@@ -149,7 +151,15 @@ export async function drawSweep(main: HTMLElement, totals: HTMLElement, plan: Sw
     meta: { column: c.name },
   }));
   const what = plan.axes.length === 1 ? '' : ` (points taken together: ${plan.axes.map((a) => a.column).join(', ')})`;
-  await Plotly.react(main, traces, baseLayout(xTitle, 'Efficiency η', `Efficiency of each order${what}`), CONFIG);
+  // both plots share one x range (a little margin so end markers are whole)
+  const xs = x.filter((v): v is number => typeof v === 'number');
+  const lo = Math.min(...xs);
+  const hi = Math.max(...xs);
+  const pad = hi > lo ? 0.015 * (hi - lo) : 1;
+  const xRange = xs.length ? [lo - pad, hi + pad] : undefined;
+  const mainLayout = baseLayout(xTitle, 'Efficiency η', `Efficiency of each order${what}`);
+  (mainLayout['xaxis'] as Record<string, unknown>)['range'] = xRange;
+  await Plotly.react(main, traces, mainLayout, CONFIG);
   const totalTraces: PlotData[] = cols.totals.map((c) => ({
     type: 'scatter',
     mode: 'lines',
@@ -160,7 +170,25 @@ export async function drawSweep(main: HTMLElement, totals: HTMLElement, plan: Sw
     hovertemplate: `${columnLabel(c)}<br>${xTitle} = %{x}<br>%{y:.5f}<extra></extra>`,
     meta: { column: c.name },
   }));
-  await Plotly.react(totals, totalTraces, { ...baseLayout(xTitle, 'Fraction of incident power', 'Reflected R, transmitted T, absorbed A = 1 − R − T'), margin: { l: 64, r: 16, t: 34, b: 48 } }, CONFIG);
+  const totalsLayout = baseLayout(xTitle, 'Fraction of incident power', 'Reflected R, transmitted T, absorbed A = 1 − R − T');
+  totalsLayout['margin'] = { l: 64, r: 130, t: 34, b: 48 };
+  (totalsLayout['xaxis'] as Record<string, unknown>)['range'] = xRange;
+  await Plotly.react(totals, totalTraces, totalsLayout, CONFIG);
+  return null;
+}
+
+/** The efficiency column with the largest sum over the rows computed so far. */
+function strongest(eff: ReadonlyArray<EffColumn>, rows: ReadonlyArray<SweepRow | undefined>): number | null {
+  let best: number | null = null;
+  let most = -1;
+  for (const c of eff) {
+    const sum = rows.reduce((a, r) => a + (cellValue(r, c.col) ?? 0), 0);
+    if (sum > most) {
+      most = sum;
+      best = c.col;
+    }
+  }
+  return best;
 }
 
 async function drawMap(main: HTMLElement, plan: SweepPlan, rows: ReadonlyArray<SweepRow | undefined>, cols: Columns, col: number): Promise<void> {
