@@ -136,5 +136,10 @@ export function sliceShape(shape: ProfileShape, slices: number, strategy: SliceS
 /** A slice: 'uniform' when one material fills the period, else 'segments'. */
 export function layerOf(thicknessUm: number, segments: NamedSegment[]): GeometryLayer {
   if (segments.length === 1) return { kind: 'uniform', thicknessUm, material: segments[0]!.material };
-  return { kind: 'segments', thicknessUm, segments };
+  // Edges rounded to 1e-12 of the period: a profile scaled in depth crosses each slice's
+  // mid-height at the same fractions, but computing them through z = t·d leaves last-bit noise
+  // that would defeat the solver's mode reuse in depth sweeps. 1e-12·Λ is far below any
+  // physical or numerical resolution.
+  const snap = (v: number): number => Math.round(v * 1e12) / 1e12;
+  return { kind: 'segments', thicknessUm, segments: segments.map((s) => ({ from: snap(s.from), to: snap(s.to), material: s.material })) };
 }
