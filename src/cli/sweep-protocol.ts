@@ -10,6 +10,8 @@ export interface WorkerSetup {
   readonly plan: SweepPlan;
   /** directory of the design file: files it names (material tables) are read relative to it */
   readonly baseDir: string;
+  /** a fresh evaluation context for every point (no cache reuse; for measurements) */
+  readonly freshContextPerPoint: boolean;
 }
 
 /** Evaluate points first … first+count−1. */

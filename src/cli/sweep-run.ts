@@ -1,21 +1,25 @@
 /**
- * Runs a block of a sweep's points on a pool of worker threads (piscina) and hands back every
- * row, in whatever order points finish. Prints nothing: the caller writes rows and shows progress.
- * With one worker the points run on the calling thread instead (no thread start-up, which costs
- * a second or more per thread, mostly loading the unit library).
+ * Runs a block of a sweep's points on `workers` lanes — this (the main) thread and workers − 1
+ * worker threads of a piscina pool — and hands back every row, in whatever order points finish.
+ * Prints nothing: the caller writes rows and shows progress.
  *
- * - Points go out in contiguous batches. The first batches hold one point each; after that a batch
- *   is sized to take about TARGET_BATCH_MS on one thread (so per-task overhead stays far below 1 %),
- *   but never so large that a thread would sit idle at the end of the run.
- * - Each thread keeps one evaluation context for the whole run, so the engine's caches work across
- *   batches; contiguous batches keep neighbouring points, which share most work, on one thread.
- * - The pool never runs further ahead of the first unfinished point than `maxAhead` points, so the
- *   rows held back for in-order writing stay few.
+ * - The main thread is one of the workers: it starts evaluating at once, while the threads start
+ *   (a thread needs a second or more to load the engine, mostly the unit library), and one
+ *   thread fewer is started. It takes points in slices of about TARGET_BATCH_MS, between which its
+ *   event loop runs (thread results, signals, output). `--workers 1` starts no thread at all.
+ * - Threads get contiguous batches. The first hold one point each; after that a batch is sized
+ *   to take about TARGET_BATCH_MS (so per-task overhead stays far below 1 %), but never so large
+ *   that a lane would sit idle at the end of the run.
+ * - Each lane keeps one evaluation context for the whole run, so the engine's caches work across
+ *   batches; contiguous batches keep neighbouring points, which share most work, on one lane.
+ * - Dispatch never runs further ahead of the first unwritten point than `maxAhead` points, so
+ *   the rows held back for in-order writing stay few.
  * - A batch whose thread dies (process.exit, a crash) or that throws is run again once; if it fails
  *   again its points run one by one, and a point that still fails becomes a row with status
- *   'failed' and the reason. The run goes on.
- * - `stop` ends dispatching; batches already running finish and are delivered. `abort` also
- *   cancels running batches (their threads are terminated).
+ *   'failed' and the reason. On the main thread a point that throws is tried once more with a
+ *   fresh context, then reported the same way. The run goes on.
+ * - `stop` ends dispatching; running batches finish and are delivered. `abort` also cancels the
+ *   threads' running batches (their threads are terminated).
  */
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
@@ -24,6 +28,7 @@ import { Piscina } from 'piscina';
 import { createEvalContext, evaluatePoint, pointAt } from '../sweep/index.ts';
 import type { SweepPlan, SweepRow } from '../sweep/types.ts';
 import { unpackRows, type BatchResult, type BatchTask, type WorkerSetup } from './sweep-protocol.ts';
+import { testHooks } from './sweep-test-hooks.ts';
 
 /** The worker threads' entry (a .mjs that loads the TypeScript handler). */
 export const WORKER_ENTRY = fileURLToPath(new URL('../../workers/sweep-worker.mjs', import.meta.url));
@@ -44,6 +49,8 @@ export interface PoolRunOptions {
   readonly workers: number;
   /** fixed batch size; default: sized from measured time per point */
   readonly batch?: number;
+  /** a fresh evaluation context for every point: no reuse of models or layer modes between points (to measure what the caches save) */
+  readonly freshContextPerPoint?: boolean;
   /** every row, once, in any order; may throw (e.g. a full disk): the run then stops and rejects with that error */
   readonly onRow: (row: SweepRow) => void;
   /** after each batch: points evaluated so far in this run */
@@ -97,66 +104,31 @@ function messageOf(e: unknown): string {
   return e instanceof Error ? e.message : String(e);
 }
 
-/**
- * One worker: points are evaluated on this (the main) thread, no worker threads are started.
- * Work goes in slices of about TARGET_BATCH_MS, between which the event loop runs (signals,
- * output). A point whose evaluation throws (a fault, not the point's own failure, which is a
- * row) is tried once more with a fresh context, then reported failed.
- */
-async function runInProcess(o: PoolRunOptions): Promise<PoolRunSummary> {
-  const readText = (file: string): string => readFileSync(resolve(o.baseDir, file), 'utf8');
-  let ctx = createEvalContext();
-  let delivered = 0;
-  let retried = 0;
-  let workerFailedPoints = 0;
-  const halted = (): boolean => !!(o.stop?.aborted || o.abort?.aborted);
-  let i = o.first;
-  while (i < o.end && !halted()) {
-    const t0 = performance.now();
-    const limit = o.batch ?? Number.POSITIVE_INFINITY;
-    for (let k = 0; i < o.end && k < limit && (o.batch !== undefined || k === 0 || performance.now() - t0 < TARGET_BATCH_MS); k++, i++) {
-      let row: SweepRow;
-      try {
-        row = evaluatePoint(o.plan, i, ctx, readText);
-      } catch {
-        retried++;
-        ctx = createEvalContext();
-        try {
-          row = evaluatePoint(o.plan, i, ctx, readText);
-        } catch (e2) {
-          workerFailedPoints++;
-          row = workerFailedRow(o.plan, i, `evaluation failed on this point, also when retried: ${messageOf(e2)}`);
-        }
-      }
-      o.onRow(row);
-      delivered++;
-    }
-    o.onProgress?.(delivered);
-    await new Promise<void>((r) => setImmediate(r));
-  }
-  return { delivered, retriedBatches: retried, workerFailedPoints, interrupted: i < o.end };
-}
-
-/** Evaluate points first … end−1: on this thread for one worker, else on a pool of worker threads. */
+/** Evaluate points first … end−1: on this thread and workers − 1 worker threads. */
 export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   const total = o.end - o.first;
   if (total <= 0) return { delivered: 0, retriedBatches: 0, workerFailedPoints: 0, interrupted: false };
-  const threads = Math.max(1, Math.min(Math.floor(o.workers), total));
-  if (threads === 1) return runInProcess(o);
-  const setup: WorkerSetup = { plan: o.plan, baseDir: o.baseDir };
-  const pool = new Piscina<BatchTask, BatchResult>({
-    filename: WORKER_ENTRY,
-    minThreads: threads,
-    maxThreads: threads,
-    idleTimeout: 60_000,
-    concurrentTasksPerWorker: 1,
-    workerData: setup,
-  });
+  const lanes = Math.max(1, Math.min(Math.floor(o.workers), total));
+  const threads = lanes - 1;
+  const setup: WorkerSetup = { plan: o.plan, baseDir: o.baseDir, freshContextPerPoint: !!o.freshContextPerPoint };
+  const pool =
+    threads > 0
+      ? new Piscina<BatchTask, BatchResult>({
+          filename: WORKER_ENTRY,
+          minThreads: threads,
+          maxThreads: threads,
+          idleTimeout: 60_000,
+          concurrentTasksPerWorker: 1,
+          workerData: setup,
+        })
+      : null;
+  const readText = (file: string): string => readFileSync(resolve(o.baseDir, file), 'utf8');
   const cancel = new AbortController();
   const maxInflight = 2 * threads;
   const retry: Work[] = [];
   let cursor = o.first;
   let inflight = 0;
+  let mainBusy = false;
   let delivered = 0;
   let retriedBatches = 0;
   let workerFailedPoints = 0;
@@ -168,6 +140,11 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   let finish!: () => void;
   const finished = new Promise<void>((r) => (finish = r));
 
+  const halt = (e: unknown): void => {
+    if (fatal === null) fatal = e;
+    stopped = true;
+    cancel.abort();
+  };
   const onStop = (): void => {
     stopped = true;
     pump();
@@ -182,19 +159,25 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   if (o.stop?.aborted) stopped = true;
   if (o.abort?.aborted) onAbort();
 
+  const measured = (ms: number, count: number): void => {
+    const sample = ms / Math.max(1, count);
+    msPerPoint = msPerPoint === null ? sample : 0.7 * msPerPoint + 0.3 * sample;
+  };
+
   function batchSize(): number {
     const remaining = o.end - cursor;
     if (o.batch !== undefined) return Math.min(o.batch, remaining);
     if (msPerPoint === null) return 1;
     const target = Math.max(1, Math.min(MAX_BATCH, Math.round(TARGET_BATCH_MS / msPerPoint)));
-    const balance = Math.max(1, Math.floor(remaining / (2 * threads)));
+    const balance = Math.max(1, Math.floor(remaining / (2 * lanes)));
     return Math.min(target, balance, remaining);
   }
 
+  const ahead = (): boolean => !!o.frontier && cursor - o.frontier() >= (o.maxAhead ?? Number.POSITIVE_INFINITY);
+
   function nextWork(): Work | null {
     if (retry.length) return retry.shift()!;
-    if (cursor >= o.end) return null;
-    if (o.frontier && cursor - o.frontier() >= (o.maxAhead ?? Number.POSITIVE_INFINITY)) return null;
+    if (cursor >= o.end || ahead()) return null;
     const count = batchSize();
     const w: Work = { first: cursor, count, attempt: 0 };
     cursor += count;
@@ -207,13 +190,12 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
     o.onProgress?.(delivered);
   }
 
+  /** A worker thread failed under a batch: run it again, then point by point, then report the point failed. */
   function fail(w: Work, e: unknown): void {
     faults++;
     const reason = messageOf(e);
     if (successes === 0 && faults >= 6) {
-      fatal = new SweepWorkerError(`the sweep workers fail before finishing any point: ${reason}`);
-      stopped = true;
-      cancel.abort();
+      halt(new SweepWorkerError(`the sweep workers fail before finishing any point: ${reason}`));
       return;
     }
     if (w.attempt === 0) {
@@ -231,18 +213,15 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
 
   function launch(w: Work): void {
     inflight++;
-    pool.run({ first: w.first, count: w.count }, { signal: cancel.signal }).then(
+    pool!.run({ first: w.first, count: w.count }, { signal: cancel.signal }).then(
       (res) => {
         inflight--;
         successes++;
-        const sample = res.ms / Math.max(1, res.count);
-        msPerPoint = msPerPoint === null ? sample : 0.7 * msPerPoint + 0.3 * sample;
+        measured(res.ms, res.count);
         try {
           deliver(unpackRows(res));
         } catch (e) {
-          if (fatal === null) fatal = e;
-          stopped = true;
-          cancel.abort();
+          halt(e);
         }
         pump();
       },
@@ -252,9 +231,7 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
           try {
             fail(w, e);
           } catch (err) {
-            if (fatal === null) fatal = err;
-            stopped = true;
-            cancel.abort();
+            halt(err);
           }
         }
         pump();
@@ -263,21 +240,77 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   }
 
   function pump(): void {
-    while (!stopped && inflight < maxInflight) {
+    while (pool && !stopped && inflight < maxInflight) {
       const w = nextWork();
       if (w === null) break;
       launch(w);
     }
-    if (inflight === 0 && (stopped || (retry.length === 0 && cursor >= o.end))) finish();
+    if (inflight === 0 && !mainBusy && (stopped || (retry.length === 0 && cursor >= o.end))) finish();
+  }
+
+  /**
+   * This thread's share: fresh points from the cursor (never the retries of a failed thread
+   * batch, which stay on threads), in slices of about TARGET_BATCH_MS between which the event loop
+   * runs (thread results, signals, output). A point whose evaluation throws (a fault, not the
+   * point's own failure, which is a row) is tried once more with a fresh context, then reported
+   * failed.
+   */
+  async function mainLane(): Promise<void> {
+    mainBusy = true;
+    let ctx = createEvalContext();
+    try {
+      while (!stopped && cursor < o.end && !ahead()) {
+        const t0 = performance.now();
+        const rows: SweepRow[] = [];
+        const limit = o.batch ?? MAX_BATCH;
+        while (!stopped && cursor < o.end && rows.length < limit && (rows.length === 0 || o.batch !== undefined || performance.now() - t0 < TARGET_BATCH_MS)) {
+          const i = cursor++;
+          let row: SweepRow;
+          try {
+            testHooks(i, false);
+            if (o.freshContextPerPoint) ctx = createEvalContext();
+            row = evaluatePoint(o.plan, i, ctx, readText);
+          } catch {
+            retriedBatches++;
+            ctx = createEvalContext();
+            try {
+              row = evaluatePoint(o.plan, i, ctx, readText);
+            } catch (e2) {
+              workerFailedPoints++;
+              row = workerFailedRow(o.plan, i, `evaluation failed on this point, also when retried: ${messageOf(e2)}`);
+            }
+          }
+          rows.push(row);
+        }
+        measured(performance.now() - t0, rows.length);
+        deliver(rows);
+        await new Promise<void>((r) => setImmediate(r));
+      }
+    } catch (e) {
+      halt(e);
+    } finally {
+      mainBusy = false;
+      pump();
+    }
+  }
+
+  /** When the main thread has no fresh points left (or must wait for the writer), it waits and takes some again later. */
+  async function mainLoop(): Promise<void> {
+    while (!stopped && cursor < o.end) {
+      await mainLane();
+      if (!stopped && cursor < o.end) await new Promise<void>((r) => setTimeout(r, 5));
+    }
+    pump();
   }
 
   try {
-    pump();
+    pump(); // the threads' first batches go out before this thread takes any points
+    void mainLoop();
     await finished;
   } finally {
     o.stop?.removeEventListener('abort', onStop);
     o.abort?.removeEventListener('abort', onAbort);
-    await pool.destroy();
+    await pool?.destroy();
   }
   if (fatal !== null) throw fatal;
   return { delivered, retriedBatches, workerFailedPoints, interrupted: delivered < total };
