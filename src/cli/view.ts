@@ -13,7 +13,7 @@
 import { createReadStream, existsSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { createServer, type Server } from 'node:http';
 import type { AddressInfo } from 'node:net';
-import { basename, dirname, extname, join, relative, resolve, sep } from 'node:path';
+import { basename, dirname, extname, isAbsolute, join, relative, resolve, sep } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
 import { InputError } from '../design/index.ts';
@@ -179,7 +179,7 @@ export async function startViewServer(o: ViewServerOptions): Promise<ViewServer>
     }
     const file = resolve(root, `.${path.endsWith('/') ? `${path}index.html` : path}`);
     const rel = relative(root, file);
-    if (rel.startsWith('..') || rel.includes(`..${sep}`) || path.includes('\0')) return send(403, 'text/plain; charset=utf-8', 'forbidden\n');
+    if (rel === '..' || rel.startsWith(`..${sep}`) || isAbsolute(rel) || path.includes('\0')) return send(403, 'text/plain; charset=utf-8', 'forbidden\n');
     let size: number;
     try {
       const st = statSync(file);
