@@ -37,7 +37,6 @@ const ui = {
   copyLink: $<HTMLButtonElement>('copy-link'),
   fileBanner: $('file-banner'),
   form: $<HTMLFormElement>('design-form'),
-  formErrors: $('form-errors'),
   json: $<HTMLTextAreaElement>('design-json'),
   status: $('design-status'),
   message: $('design-message'),
