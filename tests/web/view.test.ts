@@ -15,7 +15,7 @@ import { fileURLToPath } from 'node:url';
 import { Command } from 'commander';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { ensureWebBuild, startViewServer, type ViewServer } from '../../src/cli/view.ts';
+import { ensureWebBuild, readInitialDesign, startViewServer, type ViewServer } from '../../src/cli/view.ts';
 import { main } from '../../src/cli/main.ts';
 import { registerSweepCommands } from '../../src/cli/sweep-command.ts';
 import { formatCell } from '../../src/sweep/index.ts';
@@ -268,6 +268,22 @@ suite('browser view (Chromium)', () => {
     expect(await other.inputValue('#design-json')).toBe(text);
     expect(await other.inputValue('#f-blazeDeg')).toBe('13');
     await other.close();
+  });
+
+  it('`furrow view design.json` opens the page on that design', async () => {
+    const { dir } = await ensureWebBuild();
+    const own = await startViewServer({ dir, design: readInitialDesign(join(REPO, 'src/design/examples/gold-sinusoid-plasmon.json')) });
+    const other = await context.newPage();
+    try {
+      await other.goto(own.url);
+      await other.waitForSelector('body[data-ready="true"]');
+      expect(await other.textContent('#doc-title')).toMatch(/^Gold-coated sinusoidal grating/);
+      expect(await other.inputValue('#f-profile')).toBe('sinusoidal');
+      expect(await other.$$eval('#profile svg .legend-name', (els) => els.map((e) => e.textContent))).toEqual(['air', 'Au-LD', '1.64', '1.52']);
+    } finally {
+      await other.close();
+      await own.close();
+    }
   });
 
   it('the page logged no errors', () => {
