@@ -1,0 +1,214 @@
+/**
+ * Sweep runner benchmark: points per second on 1 and 2 workers, and what the engine's caches save.
+ *
+ *   npx tsx scripts/bench-sweep.ts                         # both cases, table + one JSON line per run
+ *   npx tsx scripts/bench-sweep.ts --case wavelength --orders 25 --points 400
+ *   npx tsx scripts/bench-sweep.ts --case depth --depth-points 100 --repeats 3   # fastest of 3
+ *
+ * Cases:
+ *   wavelength  the blazed aluminium spectrometer grating (src/design/examples/
+ *               blazed-aluminium-spectrometer.json), λ = 400…700 nm in --points steps (default
+ *               400), fixed mount. --orders and --slices replace the design's 25 and 20 (defaults
+ *               here: 15 orders, 20 slices, to keep the run short; the design file's values with
+ *               --orders 25). Workers 1 and 2.
+ *   depth       a 20-slice dielectric sawtooth (Λ = 1 µm, n = 1.5 ridges in air on n = 1.5, λ =
+ *               0.6 µm, θ = 10°, --depth-orders orders, default 25), blaze angle 5°…30° in --depth-points steps (default
+ *               100): the groove depth Λ·tan θB changes while every slice keeps its fill, so each
+ *               slice's modes can be reused. With the caches (one evaluation context per worker for
+ *               the whole run) and without (a fresh context for every point). Workers 1 and 2.
+ *
+ * What is timed: the whole run of `runPoints` as `furrow sweep` uses it (rows produced and
+ * dropped, no file), from the call to the last row — so on 2 workers it includes starting the
+ * worker thread (it loads the engine: ~1–3 s, mostly the unit library). "first row" is the
+ * time to the first row, "steady pt/s" the rate after it. One worker is the calling thread; two
+ * are the calling thread and one worker thread. "load" is the 1-minute load average at the end of
+ * the run: above the core count, other processes were taking CPU and the figures are low.
+ *
+ * Speed lives here, not in the unit tests: timings depend on the machine and its load.
+ */
+import { readFileSync } from 'node:fs';
+import { availableParallelism, loadavg } from 'node:os';
+import { dirname, resolve } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
+import { planSweep, type SweepSpec } from '../src/sweep/index.ts';
+import { runPoints } from '../src/cli/sweep-run.ts';
+
+const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
+
+interface Args {
+  cases: string[];
+  orders: number;
+  slices: number;
+  points: number;
+  depthPoints: number;
+  repeats: number;
+  depthOrders: number;
+}
+
+function parseArgs(argv: string[]): Args {
+  const a: Args = { cases: ['wavelength', 'depth'], orders: 15, slices: 20, points: 400, depthPoints: 100, repeats: 1, depthOrders: 25 };
+  for (let i = 0; i < argv.length; i++) {
+    const v = argv[i + 1];
+    const num = (): number => {
+      const n = Number(v);
+      if (!Number.isInteger(n) || n < 1) throw new Error(`${argv[i]}: expected a whole number ≥ 1, found "${v}"`);
+      i++;
+      return n;
+    };
+    switch (argv[i]) {
+      case '--case':
+        if (v !== 'wavelength' && v !== 'depth') throw new Error(`--case: wavelength or depth, found "${v}"`);
+        a.cases = [v];
+        i++;
+        break;
+      case '--orders':
+        a.orders = num();
+        break;
+      case '--slices':
+        a.slices = num();
+        break;
+      case '--points':
+        a.points = num();
+        break;
+      case '--depth-points':
+        a.depthPoints = num();
+        break;
+      case '--depth-orders':
+        a.depthOrders = num();
+        break;
+      case '--repeats':
+        a.repeats = num();
+        break;
+      default:
+        throw new Error(`unknown option ${argv[i]} (see the comment at the top of scripts/bench-sweep.ts)`);
+    }
+  }
+  return a;
+}
+
+interface Run {
+  case: string;
+  workers: number;
+  cache: boolean;
+  points: number;
+  seconds: number;
+  pointsPerSecond: number;
+  firstRowSeconds: number;
+  steadyPointsPerSecond: number;
+  orders: number;
+  slices: number;
+  /** the machine's 1-minute load average when the run ended (other processes compete for the cores) */
+  loadAverage: number;
+}
+
+/** The fastest of `repeats` runs (the least disturbed by other processes). */
+async function bestRun(repeats: number, ...args: Parameters<typeof timeRun>): Promise<Run> {
+  let best: Run | null = null;
+  for (let k = 0; k < repeats; k++) {
+    const r = await timeRun(...args);
+    if (best === null || r.seconds < best.seconds) best = r;
+  }
+  return best!;
+}
+
+async function timeRun(name: string, design: Record<string, unknown>, spec: SweepSpec, workers: number, cache: boolean, baseDir: string): Promise<Run> {
+  const plan = planSweep(design, spec, (f) => readFileSync(resolve(baseDir, f), 'utf8'));
+  let rows = 0;
+  let first = 0;
+  const t0 = performance.now();
+  await runPoints({
+    plan,
+    baseDir,
+    first: 0,
+    end: plan.count,
+    workers,
+    freshContextPerPoint: !cache,
+    onRow: () => {
+      if (rows++ === 0) first = performance.now();
+    },
+  });
+  const s = (performance.now() - t0) / 1000;
+  const firstS = (first - t0) / 1000;
+  return {
+    case: name,
+    workers,
+    cache,
+    points: rows,
+    seconds: s,
+    pointsPerSecond: rows / s,
+    firstRowSeconds: firstS,
+    steadyPointsPerSecond: (rows - 1) / Math.max(1e-9, s - firstS),
+    orders: design.orders as number,
+    slices: ((design.grating as Record<string, unknown>).slices ?? design.slices) as number,
+    loadAverage: loadavg()[0]!,
+  };
+}
+
+export async function runSweepBench(a: Args): Promise<Run[]> {
+  const runs: Run[] = [];
+  if (a.cases.includes('wavelength')) {
+    const path = resolve(ROOT, 'src/design/examples/blazed-aluminium-spectrometer.json');
+    const design = { ...(JSON.parse(readFileSync(path, 'utf8')) as Record<string, unknown>), orders: a.orders, slices: a.slices };
+    const spec: SweepSpec = { parameters: [{ path: 'incidence.wavelength', from: '400nm', to: '700nm', count: a.points }] };
+    for (const w of [1, 2]) runs.push(await bestRun(a.repeats, 'wavelength', design, spec, w, true, dirname(path)));
+  }
+  if (a.cases.includes('depth')) {
+    const design = {
+      title: 'bench: 20-slice dielectric sawtooth',
+      period: '1 um',
+      cover: 1,
+      substrate: 1.5,
+      grating: { profile: 'sawtooth', blazeDeg: 17.5, ridge: 1.5, slices: 20 },
+      incidence: { wavelength: '600 nm', angleDeg: 10 },
+      orders: a.depthOrders,
+    };
+    const spec: SweepSpec = { parameters: [{ path: 'grating.blazeDeg', from: 5, to: 30, count: a.depthPoints }] };
+    for (const cache of [true, false]) for (const w of [1, 2]) runs.push(await bestRun(a.repeats, 'depth', design, spec, w, cache, ROOT));
+  }
+  return runs;
+}
+
+function table(runs: Run[]): string[] {
+  const head = ['case', 'orders', 'slices', 'cache', 'workers', 'points', 'wall s', 'pt/s', 'speed-up', 'first row s', 'steady pt/s', 'load'];
+  const rows = runs.map((r) => {
+    const base = runs.find((q) => q.case === r.case && q.cache === r.cache && q.workers === 1);
+    return [
+      r.case,
+      String(r.orders),
+      String(r.slices),
+      r.cache ? 'on' : 'off',
+      String(r.workers),
+      String(r.points),
+      r.seconds.toFixed(2),
+      r.pointsPerSecond.toFixed(2),
+      base ? `${(r.pointsPerSecond / base.pointsPerSecond).toFixed(2)}×` : '',
+      r.firstRowSeconds.toFixed(2),
+      r.steadyPointsPerSecond.toFixed(2),
+      r.loadAverage.toFixed(1),
+    ];
+  });
+  const width = head.map((h, j) => Math.max(h.length, ...rows.map((r) => r[j]!.length)));
+  const line = (cells: string[]): string => cells.map((c, j) => c.padStart(width[j]!)).join('  ');
+  return [line(head), ...rows.map(line)];
+}
+
+async function main(): Promise<void> {
+  const args = parseArgs(process.argv.slice(2));
+  console.log(`sweep bench: ${availableParallelism()} cores, load average ${loadavg()[0]!.toFixed(1)} at the start (runs are only comparable on an otherwise idle machine)`);
+  const runs = await runSweepBench(args);
+  for (const l of table(runs)) console.log(l);
+  const on = runs.filter((r) => r.case === 'depth' && r.cache);
+  const off = runs.filter((r) => r.case === 'depth' && !r.cache);
+  for (const r of on) {
+    const o = off.find((q) => q.workers === r.workers);
+    if (o) console.log(`depth sweep, ${r.workers} worker${r.workers === 1 ? '' : 's'}: the caches make it ${(r.pointsPerSecond / o.pointsPerSecond).toFixed(2)}× faster`);
+  }
+  for (const r of runs) console.log(JSON.stringify(r));
+}
+
+if (process.argv[1] !== undefined && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  main().catch((e: unknown) => {
+    console.error(`bench-sweep: ${e instanceof Error ? e.message : String(e)}`);
+    process.exitCode = 2;
+  });
+}
