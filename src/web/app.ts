@@ -651,7 +651,7 @@ async function start(): Promise<void> {
     source = `${DEFAULT_EXAMPLE.id}.json`;
   }
   loadDesign(text, source, tables);
-  clearPlots(ui.plotMain, ui.plotTotals);
+  await clearPlots(ui.plotMain, ui.plotTotals);
   document.body.dataset['ready'] = 'true';
 }
 

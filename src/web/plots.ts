@@ -4,8 +4,16 @@
  * column over a two-parameter grid. Everything plotted is read from the rows' cells by the
  * plan's column names, so the plot shows exactly what the CSV holds.
  */
-import Plotly, { type PlotData, type Layout, type Config } from 'plotly.js-dist-min';
+import type { PlotData, Layout, Config } from 'plotly.js-dist-min';
 import type { SweepPlan, SweepRow } from '../sweep/types.ts';
+
+type PlotlyApi = typeof import('plotly.js-dist-min').default;
+let plotly: Promise<PlotlyApi> | null = null;
+/** plotly is large: it loads (as its own file) when the first plot is drawn, not with the page. */
+function loadPlotly(): Promise<PlotlyApi> {
+  plotly ??= import('plotly.js-dist-min').then((m) => m.default);
+  return plotly;
+}
 
 type Pol = 'TE' | 'TM' | 'unpol' | 'req';
 
@@ -125,6 +133,7 @@ function baseLayout(xTitle: string, yTitle: string, title: string): Layout {
  * @param mapColumn the column shown in a two-parameter map
  */
 export async function drawSweep(main: HTMLElement, totals: HTMLElement, plan: SweepPlan, rows: ReadonlyArray<SweepRow | undefined>, mapColumn: number | null): Promise<number | null> {
+  const Plotly = await loadPlotly();
   const cols = readColumns(plan);
   if (plan.axes.length >= 2 && plan.combine === 'grid') {
     const col = mapColumn ?? strongest(cols.eff, rows) ?? cols.totals[0]?.col ?? -1;
@@ -192,6 +201,7 @@ function strongest(eff: ReadonlyArray<EffColumn>, rows: ReadonlyArray<SweepRow |
 }
 
 async function drawMap(main: HTMLElement, plan: SweepPlan, rows: ReadonlyArray<SweepRow | undefined>, cols: Columns, col: number): Promise<void> {
+  const Plotly = await loadPlotly();
   const x = axisValues(plan, 0);
   const y = axisValues(plan, 1);
   const n1 = y.length;
@@ -224,14 +234,16 @@ async function drawMap(main: HTMLElement, plan: SweepPlan, rows: ReadonlyArray<S
 }
 
 /** Remove the plots. */
-export function clearPlots(...els: HTMLElement[]): void {
-  for (const el of els) {
-    Plotly.purge(el);
-    el.replaceChildren();
+export async function clearPlots(...els: HTMLElement[]): Promise<void> {
+  if (plotly) {
+    const Plotly = await plotly;
+    for (const el of els) Plotly.purge(el);
   }
+  for (const el of els) el.replaceChildren();
 }
 
 /** Download the main plot as an image. */
 export async function downloadPlot(el: HTMLElement, format: 'png' | 'svg', filename: string): Promise<void> {
+  const Plotly = await loadPlotly();
   await Plotly.downloadImage(el, { format, filename, width: Math.max(900, el.clientWidth), height: Math.max(500, el.clientHeight), scale: format === 'png' ? 2 : 1 });
 }
