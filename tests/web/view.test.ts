@@ -210,6 +210,27 @@ suite('browser view (Chromium)', () => {
     await page.screenshot({ path: join(ARTIFACTS, 'sweep-blazed.png'), fullPage: true });
   });
 
+  it('exports the plot as PNG and SVG and the design as its JSON file', async () => {
+    const save = async (button: string, name: string): Promise<{ file: string; bytes: Buffer }> => {
+      const [d] = await Promise.all([page.waitForEvent('download'), page.click(button)]);
+      const file = join(work, name);
+      await d.saveAs(file);
+      return { file: d.suggestedFilename(), bytes: readFileSync(file) };
+    };
+    const png = await save('#export-png', 'plot.png');
+    expect(png.file).toMatch(/-efficiency\.png$/);
+    expect([...png.bytes.subarray(0, 8)]).toEqual([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]); // PNG signature
+    const svg = await save('#export-svg', 'plot.svg');
+    expect(svg.file).toMatch(/-efficiency\.svg$/);
+    const svgText = svg.bytes.toString('utf8');
+    expect(svgText).toMatch(/^<svg/);
+    expect(svgText).toContain('Wavelength λ (nm)');
+    const json = await save('#save-design', 'design.json');
+    expect(json.file).toMatch(/^blazed-aluminium-reflection-grating-600-lines-mm[a-z0-9-]*\.json$/);
+    expect(json.bytes.toString('utf8')).toBe(await page.inputValue('#design-json'));
+    expect(JSON.parse(json.bytes.toString('utf8')).orders).toBe(5);
+  });
+
   it("a bad field shows the CLI's message beside it, and clears when fixed", async () => {
     await page.fill('#f-coatingThickness', '-20');
     const inline = page.locator('[data-field="coatingThickness"] .field-error');
