@@ -255,12 +255,18 @@ suite('browser view (Chromium)', () => {
     const before = await traces(page, 'plot-main');
     const te0 = before.find((t) => t.column === 'R_-1_TE')!.y;
     const tm0 = before.find((t) => t.column === 'R_-1_TM')!.y;
-    const runs = Number(await page.getAttribute('#plot-main', 'data-runs'));
     const height0 = await page.textContent('#derived-height');
+    const runsDone = (n: number) =>
+      page.waitForFunction((k) => Number(document.getElementById('plot-main')?.dataset['runs']) > k && document.getElementById('plot-main')?.dataset['state'] === 'done', n);
+    const runs = async (): Promise<number> => Number(await page.getAttribute('#plot-main', 'data-runs'));
 
+    // switching re-runs on re-runs the sweep as it stands; then an edit alone starts the next one
+    const n0 = await runs();
     await page.check('#auto-run');
+    await runsDone(n0);
+    const n1 = await runs();
     await page.fill('#f-blazeDeg', '13');
-    await page.waitForFunction((n) => Number(document.getElementById('plot-main')?.dataset['runs']) > n && document.getElementById('plot-main')?.dataset['state'] === 'done', runs);
+    await runsDone(n1);
 
     // the sawtooth's depth follows its blaze angle (depth = Λ / (cot θB + cot β))
     const height1 = await page.textContent('#derived-height');
