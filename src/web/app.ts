@@ -35,7 +35,6 @@ const ui = {
   openFile: $<HTMLInputElement>('open-file'),
   saveDesign: $<HTMLButtonElement>('save-design'),
   copyLink: $<HTMLButtonElement>('copy-link'),
-  fileBanner: $('file-banner'),
   form: $<HTMLFormElement>('design-form'),
   json: $<HTMLTextAreaElement>('design-json'),
   status: $('design-status'),
@@ -620,7 +619,6 @@ function wire(): void {
 }
 
 async function start(): Promise<void> {
-  if (location.protocol === 'file:') ui.fileBanner.hidden = false;
   buildForm();
   wire();
   setRunState('idle');
