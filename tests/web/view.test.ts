@@ -11,7 +11,7 @@
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { Command } from 'commander';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -310,6 +310,18 @@ suite('browser view (Chromium)', () => {
     } finally {
       await other.close();
       await own.close();
+    }
+  });
+
+  it('opened from a file (no server), the page says it must be served', async () => {
+    const { dir } = await ensureWebBuild();
+    const other = await context.newPage();
+    try {
+      await other.goto(pathToFileURL(join(dir, 'index.html')).href);
+      await other.waitForSelector('#file-banner', { state: 'visible' });
+      expect(await other.textContent('#file-banner')).toMatch(/served over http\(s\): run\s+furrow view/);
+    } finally {
+      await other.close();
     }
   });
 
