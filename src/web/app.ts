@@ -128,7 +128,12 @@ function buildForm(): void {
       let input: HTMLInputElement | HTMLSelectElement;
       if (f.kind === 'select') {
         const sel = document.createElement('select');
-        for (const [v, t] of f.options ?? []) sel.add(new Option(t, v));
+        for (const [v, t] of f.options ?? []) {
+          const o = new Option(t, v);
+          // shown when the file has them, edited in the JSON
+          o.disabled = v === 'jones' || v === 'layers';
+          sel.add(o);
+        }
         input = sel;
       } else {
         const inp = document.createElement('input');
@@ -391,6 +396,9 @@ function readPanel(): PanelSettings {
 
 // ---------------------------------------------------------------- running a sweep
 
+/** Most points a sweep in the page may have: every row is kept in memory and plotted. */
+const MAX_PAGE_POINTS = 100_000;
+
 let runTimer = 0;
 function designChanged(): void {
   clearTimeout(runTimer);
@@ -426,6 +434,10 @@ function startSweep(): void {
   } catch (e) {
     if (e instanceof InputError || e instanceof PanelError) ui.sweepMessage.textContent = e.message;
     else ui.sweepMessage.textContent = `cannot plan this sweep: ${e instanceof Error ? e.message : String(e)}`;
+    return;
+  }
+  if (plan.count > MAX_PAGE_POINTS) {
+    ui.sweepMessage.textContent = `${plan.count} points is more than this page plots (${MAX_PAGE_POINTS}); run it with furrow sweep, which writes the rows to a file as they come.`;
     return;
   }
   state.plan = plan;
