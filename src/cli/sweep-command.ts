@@ -190,18 +190,19 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
   const writer = new OrderedWriter(next, end, format, plan.columns, sink);
   const stop = new AbortController();
   const abort = new AbortController();
+  const alreadyDone = next - first;
+  const progress = createProgress(end - first, alreadyDone, !flags.quiet);
   const got: { signal: NodeJS.Signals | null } = { signal: null };
   const onSignal = (s: NodeJS.Signals): void => {
     if (got.signal === null) {
       got.signal = s;
       stop.abort();
-      if (!flags.quiet) process.stderr.write(`\nfurrow: ${s}: finishing the running batches (send it again to stop at once)\n`);
+      progress.stop(); // the bar ends here, so the notice below gets a line of its own
+      if (!flags.quiet) process.stderr.write(`furrow: ${s}: finishing the running batches (send it again to stop at once)\n`);
     } else abort.abort();
   };
   process.on('SIGINT', onSignal);
   process.on('SIGTERM', onSignal);
-  const alreadyDone = next - first;
-  const progress = createProgress(end - first, alreadyDone, !flags.quiet);
   const t0 = performance.now();
   let retriedBatches = 0;
   try {

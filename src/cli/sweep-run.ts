@@ -18,14 +18,16 @@
  *   again its points run one by one, and a point that still fails becomes a row with status
  *   'failed' and the reason. On the main thread a point that throws is tried once more with a
  *   fresh context, then reported the same way. The run goes on.
- * - `stop` ends dispatching; running batches finish and are delivered. `abort` also cancels the
- *   threads' running batches (their threads are terminated).
+ * - `stop` ends dispatching; running batches finish and are delivered (a thread batch that fails
+ *   then is evaluated on the main thread instead, so the rows finished after it can still be
+ *   written in order). `abort` also cancels the threads' running batches (their threads are
+ *   terminated).
  */
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { Piscina } from 'piscina';
-import { createEvalContext, evaluatePoint, pointAt } from '../sweep/index.ts';
+import { createEvalContext, type EvalContext, evaluatePoint, pointAt } from '../sweep/index.ts';
 import type { SweepPlan, SweepRow } from '../sweep/types.ts';
 import { unpackRows, type BatchResult, type BatchTask, type WorkerSetup } from './sweep-protocol.ts';
 import { testHooks } from './sweep-test-hooks.ts';
@@ -190,10 +192,37 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
     o.onProgress?.(delivered);
   }
 
+  /** Points evaluated on this thread, each tried twice (a fresh context the second time) before it is reported failed. */
+  function evaluateHere(i: number, ctx: { current: EvalContext }): SweepRow {
+    try {
+      testHooks(i, false);
+      if (o.freshContextPerPoint) ctx.current = createEvalContext();
+      return evaluatePoint(o.plan, i, ctx.current, readText);
+    } catch {
+      retriedBatches++;
+      ctx.current = createEvalContext();
+      try {
+        return evaluatePoint(o.plan, i, ctx.current, readText);
+      } catch (e2) {
+        workerFailedPoints++;
+        return workerFailedRow(o.plan, i, `evaluation failed on this point, also when retried: ${messageOf(e2)}`);
+      }
+    }
+  }
+
   /** A worker thread failed under a batch: run it again, then point by point, then report the point failed. */
   function fail(w: Work, e: unknown): void {
     faults++;
     const reason = messageOf(e);
+    if (stopped) {
+      // stopping: no new thread work, but the batch's rows may be what keeps finished rows after it
+      // from being written, so this thread evaluates them (a batch is a fraction of a second)
+      const ctx = { current: createEvalContext() };
+      const rows: SweepRow[] = [];
+      for (let i = w.first; i < w.first + w.count; i++) rows.push(evaluateHere(i, ctx));
+      deliver(rows);
+      return;
+    }
     if (successes === 0 && faults >= 6) {
       halt(new SweepWorkerError(`the sweep workers fail before finishing any point: ${reason}`));
       return;
@@ -255,32 +284,16 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
    * point's own failure, which is a row) is tried once more with a fresh context, then reported
    * failed.
    */
+  const mainCtx = { current: createEvalContext() };
   async function mainLane(): Promise<void> {
     mainBusy = true;
-    let ctx = createEvalContext();
     try {
       while (!stopped && cursor < o.end && !ahead()) {
         const t0 = performance.now();
         const rows: SweepRow[] = [];
         const limit = o.batch ?? MAX_BATCH;
         while (!stopped && cursor < o.end && rows.length < limit && (rows.length === 0 || o.batch !== undefined || performance.now() - t0 < TARGET_BATCH_MS)) {
-          const i = cursor++;
-          let row: SweepRow;
-          try {
-            testHooks(i, false);
-            if (o.freshContextPerPoint) ctx = createEvalContext();
-            row = evaluatePoint(o.plan, i, ctx, readText);
-          } catch {
-            retriedBatches++;
-            ctx = createEvalContext();
-            try {
-              row = evaluatePoint(o.plan, i, ctx, readText);
-            } catch (e2) {
-              workerFailedPoints++;
-              row = workerFailedRow(o.plan, i, `evaluation failed on this point, also when retried: ${messageOf(e2)}`);
-            }
-          }
-          rows.push(row);
+          rows.push(evaluateHere(cursor++, mainCtx));
         }
         measured(performance.now() - t0, rows.length);
         deliver(rows);
