@@ -65,10 +65,10 @@ export const conditionsShape = {
 
 /** Turn zod issues under a section into one InputError (one line per problem). */
 export function sectionError(section: string, err: z.ZodError): InputError {
-  const lines = err.issues.map((i) => {
+  const lines = err.issues.flatMap((i) => {
     const path = section + i.path.map((p) => (typeof p === 'number' ? `[${p}]` : `.${String(p)}`)).join('');
-    const hint = i.code === 'unrecognized_keys' ? ' (remove it or check its spelling)' : '';
-    return { path, text: `${i.message}${hint}` };
+    if (i.code === 'unrecognized_keys') return i.keys.map((k) => ({ path: `${path}.${k}`, text: 'unknown field (remove it or check its spelling)' }));
+    return [{ path, text: i.message }];
   });
   if (lines.length === 1) return new InputError(lines[0]!.path, lines[0]!.text);
   return new InputError(section, 'these fields need changing:\n' + lines.map((l) => `  - ${l.path}: ${l.text}`).join('\n'));
