@@ -136,7 +136,7 @@ export interface OptimizeResult {
   readonly nominalObjective: number | null;
   readonly conditions: string;
   readonly curves: ReadonlyArray<OptimumCurve>;
-  readonly scan: { readonly method: 'grid' | 'lhs'; readonly points: number; readonly solves: number; readonly workers: string };
+  readonly scan: { readonly method: 'grid' | 'lhs'; readonly points: number; readonly solves: number; readonly ran: string };
   readonly refine: {
     readonly method: 'brent' | 'nelder-mead';
     readonly starts: ReadonlyArray<{ readonly from: ReadonlyArray<number>; readonly to: ReadonlyArray<number>; readonly objective: number | null; readonly evaluations: number; readonly converged: boolean }>;
@@ -156,8 +156,8 @@ export interface OptimizeOptions {
   readonly readText?: ReadText;
   /** evaluates the coarse scan's plan, e.g. on a worker pool (default: in-process) */
   readonly scanRunner?: PlanRunner;
-  /** said in the report of the scan: how scanRunner runs (default 'in-process') */
-  readonly scanRunnerName?: string;
+  /** said in the report of the scan, after it ran: how scanRunner ran (default 'in-process') */
+  readonly scanRunnerName?: string | (() => string);
   /** the in-process evaluation context (default: a fresh one) */
   readonly context?: EvalContext;
 }
@@ -356,6 +356,7 @@ export async function optimize(design: unknown, spec: unknown, options: Optimize
   }
   const scanVisits = await evaluate(points, scanRun);
   const scanSolves = ev.solves;
+  const scanRan = typeof options.scanRunnerName === 'function' ? options.scanRunnerName() : (options.scanRunnerName ?? 'in-process');
 
   // starts: the best local maxima of the scan (no scan point within 1.5 spacings scores higher:
   // on a grid, the point beats its whole neighbourhood), so each start is a separate basin
@@ -484,7 +485,7 @@ export async function optimize(design: unknown, spec: unknown, options: Optimize
     nominalObjective,
     conditions: describeConditions(conditions),
     curves,
-    scan: { method, points: points.length, solves: scanSolves, workers: options.scanRunnerName ?? 'in-process' },
+    scan: { method, points: points.length, solves: scanSolves, ran: scanRan },
     refine: { method: k === 1 ? 'brent' : 'nelder-mead', starts: refineStarts, solves: refineSolves },
     solves: ev.solves + curveEv.solves,
     seconds: (performance.now() - t0) / 1000,
