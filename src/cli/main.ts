@@ -10,6 +10,8 @@ import { SolverError, SOLVER_VERSION } from '../solver/index.ts';
 import { describeProblem, orderTable } from './format.ts';
 import { ordersReport } from './orders.ts';
 import { registerFieldsCommand } from './fields.ts';
+import { registerSweepCommands } from './sweep-command.ts';
+import { registerViewCommand } from './view.ts';
 import { demoDesignRaw } from './demo.ts';
 import { MaterialError, MaterialLibrary } from '../materials/index.ts';
 import { materialsList, materialsShow } from './materials.ts';
@@ -163,6 +165,8 @@ export function buildProgram(out: (s: string) => void): Command {
       });
       for (const l of lines) out(l);
     });
+  registerSweepCommands(program, out);
+  registerViewCommand(program, out);
   registerFieldsCommand(program, out, loadDesign, (msg) => {
     throw new CliFailure(msg);
   });

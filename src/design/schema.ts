@@ -141,6 +141,10 @@ export const DesignSchema = z.strictObject({
   allowExtrapolation: z.boolean().default(false),
   /** accept κ < 0 (gain media) */
   allowGain: z.boolean().default(false),
+  /** sections read by `furrow sweep`, `furrow optimize` and `furrow tolerance`, which validate them */
+  sweep: z.unknown().optional(),
+  optimize: z.unknown().optional(),
+  tolerance: z.unknown().optional(),
 });
 
 export type DesignInput = z.input<typeof DesignSchema>;
