@@ -33,7 +33,7 @@ import {
   type ShardInfo,
   type SweepFormat,
 } from './sweep-output.ts';
-import { runPoints, SweepWorkerError } from './sweep-run.ts';
+import { runPoints } from './sweep-run.ts';
 import { chooseShard, shardBlock, shardPath } from './sweep-shard.ts';
 import { specFromFlags, type SpecFlags } from './sweep-spec.ts';
 
@@ -205,6 +205,7 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
   process.on('SIGTERM', onSignal);
   const t0 = performance.now();
   let retriedBatches = 0;
+  let threadFault: string | null = null;
   try {
     if (next < end) {
       const summary = await runPoints({
@@ -222,10 +223,8 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
         abort: abort.signal,
       });
       retriedBatches = summary.retriedBatches;
+      threadFault = summary.threadFault;
     }
-  } catch (e) {
-    if (e instanceof SweepWorkerError) throw new CliFailure(e.message, 3);
-    throw e;
   } finally {
     progress.stop();
     process.off('SIGINT', onSignal);
@@ -259,7 +258,9 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
     const rate = writer.written / Math.max(seconds, 1e-9);
     const failedText = result.failed ? `, ${result.failed} failed (status column)` : '';
     const resumed = alreadyDone ? ` (${alreadyDone} were already there)` : '';
-    const retried = retriedBatches ? `; ${retriedBatches} batch${retriedBatches === 1 ? '' : 'es'} run again after a worker fault` : '';
+    const retried =
+      (retriedBatches ? `; ${retriedBatches} batch${retriedBatches === 1 ? '' : 'es'} run again after a worker fault` : '') +
+      (threadFault !== null ? `; the worker threads failed (${threadFault}), so the main thread ran their points` : '');
     say(
       writer.written === 0 && alreadyDone > 0
         ? `sweep: ${output} is already complete (${end - first} points${failedText})`

@@ -17,7 +17,10 @@
  * - A batch whose thread dies (process.exit, a crash) or that throws is run again once; if it fails
  *   again its points run one by one, and a point that still fails becomes a row with status
  *   'failed' and the reason. On the main thread a point that throws is tried once more with a
- *   fresh context, then reported the same way. The run goes on.
+ *   fresh context, then reported the same way. The run goes on. If the threads fail six times in
+ *   a row, or fail while starting (they cannot load the engine, say; piscina then starts no
+ *   more), they are given up and the main thread runs the rest; the summary says why. Until a thread has finished a batch, a point is not blamed for
+ *   its thread's failure.
  * - `stop` ends dispatching; running batches finish and are delivered (a thread batch that fails
  *   then is evaluated on the main thread instead, so the rows finished after it can still be
  *   written in order). `abort` also cancels the threads' running batches (their threads are
@@ -51,6 +54,8 @@ export interface PoolRunOptions {
   readonly workers: number;
   /** fixed batch size; default: sized from measured time per point */
   readonly batch?: number;
+  /** the worker threads' entry module (default WORKER_ENTRY) */
+  readonly workerEntry?: string;
   /** a fresh evaluation context for every point: no reuse of models or layer modes between points (to measure what the caches save) */
   readonly freshContextPerPoint?: boolean;
   /** every row, once, in any order; may throw (e.g. a full disk): the run then stops and rejects with that error */
@@ -75,11 +80,8 @@ export interface PoolRunSummary {
   readonly workerFailedPoints: number;
   /** true when stop or abort ended the run before every point was delivered */
   readonly interrupted: boolean;
-}
-
-/** A worker that cannot evaluate anything (e.g. the engine fails to load). */
-export class SweepWorkerError extends Error {
-  override readonly name = 'SweepWorkerError';
+  /** why the worker threads were given up (six faults in a row), so the main thread ran the rest; else null */
+  readonly threadFault: string | null;
 }
 
 interface Work extends BatchTask {
@@ -109,14 +111,14 @@ function messageOf(e: unknown): string {
 /** Evaluate points first … end−1: on this thread and workers − 1 worker threads. */
 export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   const total = o.end - o.first;
-  if (total <= 0) return { delivered: 0, retriedBatches: 0, workerFailedPoints: 0, interrupted: false };
+  if (total <= 0) return { delivered: 0, retriedBatches: 0, workerFailedPoints: 0, interrupted: false, threadFault: null };
   const lanes = Math.max(1, Math.min(Math.floor(o.workers), total));
   const threads = lanes - 1;
   const setup: WorkerSetup = { plan: o.plan, baseDir: o.baseDir, freshContextPerPoint: !!o.freshContextPerPoint };
   const pool =
     threads > 0
       ? new Piscina<BatchTask, BatchResult>({
-          filename: WORKER_ENTRY,
+          filename: o.workerEntry ?? WORKER_ENTRY,
           minThreads: threads,
           maxThreads: threads,
           idleTimeout: 60_000,
@@ -129,13 +131,18 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   const maxInflight = 2 * threads;
   const retry: Work[] = [];
   let cursor = o.first;
-  let inflight = 0;
+  /** thread batches handed to the pool and not yet settled */
+  const inflight = new Set<Work>();
   let mainBusy = false;
   let delivered = 0;
   let retriedBatches = 0;
   let workerFailedPoints = 0;
   let successes = 0;
-  let faults = 0;
+  /** thread faults since a thread last finished a batch */
+  let faultsInARow = 0;
+  /** set when the threads are given up (six faults in a row, or none left running): the reason; the main thread then takes all work */
+  let threadFault: string | null = null;
+  let mainRunning = false;
   let msPerPoint: number | null = null;
   let stopped = false;
   let fatal: unknown = null;
@@ -212,7 +219,7 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
 
   /** A worker thread failed under a batch: run it again, then point by point, then report the point failed. */
   function fail(w: Work, e: unknown): void {
-    faults++;
+    faultsInARow++;
     const reason = messageOf(e);
     if (stopped) {
       // stopping: no new thread work, but the batch's rows may be what keeps finished rows after it
@@ -223,8 +230,14 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
       deliver(rows);
       return;
     }
-    if (successes === 0 && faults >= 6) {
-      halt(new SweepWorkerError(`the sweep workers fail before finishing any point: ${reason}`));
+    if (threadFault !== null) {
+      retry.push(w);
+      if (!mainRunning) void mainLoop();
+      return;
+    }
+    if (faultsInARow >= 6) {
+      retry.push(w);
+      giveUpThreads(reason);
       return;
     }
     if (w.attempt === 0) {
@@ -234,18 +247,34 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
       const singles: Work[] = [];
       for (let i = w.first; i < w.first + w.count; i++) singles.push({ first: i, count: 1, attempt: 2 });
       retry.unshift(...singles);
+    } else if (successes === 0) {
+      retry.push(w); // no thread has worked yet: the point may not be at fault; try again (see threadFault)
     } else {
       workerFailedPoints++;
       deliver([workerFailedRow(o.plan, w.first, `worker failed on this point, also when retried: ${reason}`)]);
     }
   }
 
+  /**
+   * The threads fail over and over without finishing a batch (they cannot load the engine, say):
+   * stop using them; their batches go back in the queue for the main thread.
+   */
+  function giveUpThreads(reason: string): void {
+    if (threadFault !== null) return;
+    threadFault = reason;
+    for (const w of inflight) retry.push(w);
+    inflight.clear();
+    void pool!.destroy().catch(() => {});
+    if (!mainRunning) void mainLoop();
+  }
+
   function launch(w: Work): void {
-    inflight++;
+    inflight.add(w);
     pool!.run({ first: w.first, count: w.count }, { signal: cancel.signal }).then(
       (res) => {
-        inflight--;
+        if (!inflight.delete(w)) return; // given back to the main thread meanwhile
         successes++;
+        faultsInARow = 0;
         measured(res.ms, res.count);
         try {
           deliver(unpackRows(res));
@@ -255,10 +284,12 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
         pump();
       },
       (e: unknown) => {
-        inflight--;
+        if (!inflight.delete(w)) return;
         if (!cancel.signal.aborted) {
           try {
             fail(w, e);
+            // a thread that failed while starting is not replaced by piscina
+            if (pool!.threads.length === 0) giveUpThreads(messageOf(e));
           } catch (err) {
             halt(err);
           }
@@ -269,12 +300,12 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   }
 
   function pump(): void {
-    while (pool && !stopped && inflight < maxInflight) {
+    while (pool && threadFault === null && !stopped && inflight.size < maxInflight) {
       const w = nextWork();
       if (w === null) break;
       launch(w);
     }
-    if (inflight === 0 && !mainBusy && (stopped || (retry.length === 0 && cursor >= o.end))) finish();
+    if (inflight.size === 0 && !mainBusy && !mainRunning && (stopped || (retry.length === 0 && cursor >= o.end))) finish();
   }
 
   /**
@@ -288,12 +319,17 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   async function mainLane(): Promise<void> {
     mainBusy = true;
     try {
-      while (!stopped && cursor < o.end && !ahead()) {
+      while (!stopped && ((cursor < o.end && !ahead()) || (threadFault !== null && retry.length > 0))) {
         const t0 = performance.now();
         const rows: SweepRow[] = [];
-        const limit = o.batch ?? MAX_BATCH;
-        while (!stopped && cursor < o.end && rows.length < limit && (rows.length === 0 || o.batch !== undefined || performance.now() - t0 < TARGET_BATCH_MS)) {
-          rows.push(evaluateHere(cursor++, mainCtx));
+        if (threadFault !== null && retry.length > 0) {
+          const w = retry.shift()!;
+          for (let i = w.first; i < w.first + w.count; i++) rows.push(evaluateHere(i, mainCtx));
+        } else {
+          const limit = o.batch ?? MAX_BATCH;
+          while (!stopped && cursor < o.end && rows.length < limit && (rows.length === 0 || o.batch !== undefined || performance.now() - t0 < TARGET_BATCH_MS)) {
+            rows.push(evaluateHere(cursor++, mainCtx));
+          }
         }
         measured(performance.now() - t0, rows.length);
         deliver(rows);
@@ -309,13 +345,19 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
 
   /** When the main thread has no fresh points left (or must wait for the writer), it waits and takes some again later. */
   async function mainLoop(): Promise<void> {
-    while (!stopped && cursor < o.end) {
+    mainRunning = true;
+    const more = (): boolean => !stopped && (cursor < o.end || (threadFault !== null && retry.length > 0));
+    while (more()) {
       await mainLane();
-      if (!stopped && cursor < o.end) await new Promise<void>((r) => setTimeout(r, 5));
+      if (more()) await new Promise<void>((r) => setTimeout(r, 5));
     }
+    mainRunning = false;
     pump();
   }
 
+  // a thread that fails outside a task (while starting) is reported here, not through a task;
+  // piscina starts no new thread after a start-up failure, so the threads are done for
+  pool?.on('error', (e: unknown) => giveUpThreads(messageOf(e)));
   try {
     pump(); // the threads' first batches go out before this thread takes any points
     void mainLoop();
@@ -323,8 +365,8 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   } finally {
     o.stop?.removeEventListener('abort', onStop);
     o.abort?.removeEventListener('abort', onAbort);
-    await pool?.destroy();
+    if (threadFault === null) await pool?.destroy();
   }
   if (fatal !== null) throw fatal;
-  return { delivered, retriedBatches, workerFailedPoints, interrupted: delivered < total };
+  return { delivered, retriedBatches, workerFailedPoints, interrupted: delivered < total, threadFault };
 }

@@ -6,10 +6,11 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { planSweep } from '../../src/sweep/index.ts';
+import { createEvalContext, evaluatePoint, planSweep } from '../../src/sweep/index.ts';
 import type { SweepRow } from '../../src/sweep/types.ts';
 import { csvField, OrderedWriter, rowText, scanRows, SweepFileError, sweepHash } from '../../src/cli/sweep-output.ts';
 import { packRows, unpackRows } from '../../src/cli/sweep-protocol.ts';
+import { runPoints } from '../../src/cli/sweep-run.ts';
 import { specFromFlags } from '../../src/cli/sweep-spec.ts';
 import { expectedCsv, furrow, smallDesign, tempDir, writeJson } from './run-helpers.ts';
 
@@ -80,6 +81,33 @@ describe('furrow sweep, one worker and two', () => {
     expect(again.code).toBe(2);
     expect(again.stdout).toMatch(/one\.csv exists already: add --resume to continue it or --overwrite to replace it/);
     expect(readFileSync(join(dir, 'one.csv'), 'utf8')).toBe(before);
+  });
+});
+
+describe('worker threads that cannot start', () => {
+  it('are given up and the main thread evaluates every point, each once; the reason is reported', async () => {
+    const d = tempDir();
+    const broken = join(d, 'broken-worker.mjs');
+    writeFileSync(broken, 'throw new Error("no engine here");\n');
+    const plan = planSweep(design, specFromFlags(design, { param: ['incidence.wavelength=400nm:800nm:9'] }));
+    const seen: number[] = [];
+    const rows = new Map<number, SweepRow>();
+    const r = await runPoints({
+      plan,
+      baseDir: dir,
+      first: 0,
+      end: plan.count,
+      workers: 3,
+      workerEntry: broken,
+      onRow: (row) => {
+        seen.push(row.index);
+        rows.set(row.index, row);
+      },
+    });
+    expect(r.threadFault).toBe('no engine here');
+    expect(r.interrupted).toBe(false);
+    expect([...seen].sort((a, b) => a - b)).toEqual([0, 1, 2, 3, 4, 5, 6, 7, 8]);
+    for (let i = 0; i < plan.count; i++) expect(rows.get(i)).toEqual(evaluatePoint(plan, i, createEvalContext()));
   });
 });
 
