@@ -27,6 +27,15 @@ import { registerToleranceCommand } from './tolerance.ts';
  */
 export const POOL_WORTH_MS = 3000;
 
+/**
+ * The threshold the commands use: POOL_WORTH_MS, or FURROW_POOL_WORTH_MS from the environment —
+ * a test hook, so tests can send small jobs to the threads on purpose (no other use).
+ */
+export function poolWorthMs(): number {
+  const v = Number(process.env.FURROW_POOL_WORTH_MS);
+  return process.env.FURROW_POOL_WORTH_MS !== undefined && v >= 0 ? v : POOL_WORTH_MS;
+}
+
 function isRecord(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v);
 }
@@ -343,7 +352,7 @@ async function optimizeCommand(path: string, f: OptimizeFlags, out: (s: string) 
   const spec = optimizeSpec(design, f);
   const workers = workersFlag(f.workers);
   const ctx = createEvalContext();
-  const pool = poolRunner(baseDir, workers, ctx, readText);
+  const pool = poolRunner(baseDir, workers, ctx, readText, poolWorthMs());
   const r = await optimize(design, spec, { readText, context: ctx, scanRunner: pool.run, scanRunnerName: pool.describe });
   const title = typeof design.title === 'string' ? design.title : path;
   if (f.json) out(JSON.stringify({ design: title, ...r }, null, 2));

@@ -8,7 +8,7 @@ import type { Command } from 'commander';
 import { InputError } from '../design/index.ts';
 import { toleranceAnalysis, type ToleranceResult } from '../optimize/index.ts';
 import { createEvalContext } from '../sweep/index.ts';
-import { applyQuantityFlags, collect, poolRunner, type QuantityFlags, quantityOptions, readDesignFile, workersFlag } from './optimize.ts';
+import { applyQuantityFlags, collect, poolRunner, poolWorthMs, type QuantityFlags, quantityOptions, readDesignFile, workersFlag } from './optimize.ts';
 
 interface ToleranceFlags extends QuantityFlags {
   param: string[];
@@ -102,7 +102,7 @@ async function toleranceCommand(path: string, f: ToleranceFlags, out: (s: string
   const spec = toleranceSpec(design, f);
   const workers = workersFlag(f.workers);
   const ctx = createEvalContext();
-  const pool = poolRunner(baseDir, workers, ctx, readText);
+  const pool = poolRunner(baseDir, workers, ctx, readText, poolWorthMs());
   const r = await toleranceAnalysis(design, spec, { readText, context: ctx, runner: pool.run });
   const title = typeof design.title === 'string' ? design.title : path;
   if (f.json) out(JSON.stringify({ design: title, ...r, ran: pool.describe() }, null, 2));

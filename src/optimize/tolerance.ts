@@ -127,7 +127,9 @@ export function summarize(values: ReadonlyArray<number>): Distribution1D {
   if (v.length === 0) throw new RangeError('summarize: no finite values');
   const sorted = [...v].sort((a, b) => a - b);
   const n = v.length;
-  const mean = v.reduce((s, x) => s + x, 0) / n;
+  // shifted by the first value: equal values give exactly that value and a zero deviation
+  const x0 = v[0]!;
+  const mean = x0 + v.reduce((s, x) => s + (x - x0), 0) / n;
   const std = n > 1 ? Math.sqrt(v.reduce((s, x) => s + (x - mean) ** 2, 0) / (n - 1)) : 0;
   return { count: n, mean, std, min: sorted[0]!, p5: percentile(sorted, 0.05), p50: percentile(sorted, 0.5), p95: percentile(sorted, 0.95), max: sorted[n - 1]! };
 }
