@@ -303,7 +303,7 @@ export function registerSweepCommands(program: Command, out: (s: string) => void
     .option('--pdl', 'also the polarization-dependent loss per order (dB)')
     .option('-o, --output <path>', 'output file, or - for standard output (no run header then); {shard} becomes the shard number', '-')
     .option('--format <csv|jsonl>', 'row format (default: jsonl for a .jsonl/.ndjson output, else csv)')
-    .option('--workers <n>', `worker threads (default: this machine's ${availableParallelism()})`)
+    .option('--workers <n>', `points evaluated in parallel: this thread and n − 1 worker threads (default: ${availableParallelism()}, the cores available)`)
     .option('--batch <n>', 'points per task (default: sized to about 150 ms of work)')
     .option('--shard <K/N>', 'run only shard K of N (contiguous blocks); auto/N takes K from JOB_COMPLETION_INDEX or SLURM_ARRAY_TASK_ID')
     .option('--shards <n>', 'same as --shard auto/N')
