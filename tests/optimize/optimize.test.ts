@@ -4,7 +4,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { designToModel, InputError, problemAt } from '../../src/design/index.ts';
-import { optimize } from '../../src/optimize/index.ts';
+import { featureWidths, optimize } from '../../src/optimize/index.ts';
+import { createEvalContext } from '../../src/sweep/index.ts';
 import { ModeCache, solve } from '../../src/solver/index.ts';
 
 /** Binary phase grating: Λ = 10 µm, λ = 1 µm (Λ/λ = 10), n = 1.5, 50 % duty — the scalar regime. */
@@ -242,6 +243,40 @@ describe('optimize() options', () => {
     expect(a.scan).toMatchObject({ method: 'lhs', points: 20 });
     expect(a.variables).toEqual(b.variables);
     expect(a.objective).toEqual(b.objective);
+  });
+});
+
+describe('optimize() evaluates cheaply and measures features as built', () => {
+  it('reuses the layer eigenmodes of the first solve for every other depth (one shared context)', async () => {
+    const ctx = createEvalContext();
+    const r = await optimize(
+      binary,
+      { variables: [{ path: 'grating.depth', min: '300 nm', max: '1800 nm' }], objective: { order: [-1, 1], side: 'T' }, curve: { values: ['1000 nm'] } },
+      { context: ctx },
+    );
+    expect(r.solves).toBeGreaterThan(20);
+    // a layer's modes depend on its permittivity profile, λ and the incidence, not on its thickness
+    // (src/sweep/evaluate.ts): only the first solve computes any; 6 in development (the ridge layer
+    // and the half-spaces, both polarizations); every later lookup is a hit
+    const first = createEvalContext();
+    await optimize(binary, { variables: [{ path: 'grating.depth', min: '300 nm', max: '1800 nm' }], objective: { order: [-1, 1], side: 'T' }, scan: { points: 2 }, starts: 1, maxSolves: 2, curve: { values: ['1000 nm'] } }, { context: first }).catch(() => undefined);
+    expect(ctx.modes!.misses).toBe(first.modes!.misses);
+    expect(ctx.modes!.hits).toBeGreaterThan(r.solves);
+  });
+
+  it('measures lamellar and trapezoid ridges and grooves from the profile definitions', () => {
+    // lamellar: ridge f·Λ, groove (1 − f)·Λ
+    expect(featureWidths({ periodNm: 1000, grating: { profile: 'lamellar', duty: 0.3, depth: '1 um' } })).toEqual({ ridgeUm: 0.3, grooveUm: 0.7 });
+    // trapezoid by duty at mid-height and sidewall α from the grating plane: widths f·Λ ± d/tan α
+    const run = 0.2 / Math.tan((80 * Math.PI) / 180);
+    const t = featureWidths({ periodUm: 1, grating: { profile: 'trapezoid', duty: 0.4, sidewallDeg: 80, depth: '200 nm' } })!;
+    expect(t.ridgeUm).toBeCloseTo(0.4 - run, 14); // the top
+    expect(t.grooveUm).toBeCloseTo(1 - (0.4 + run), 14); // beside the bottom
+    // by widths
+    const w = featureWidths({ grooveDensityPerMm: 1000, grating: { profile: 'trapezoid', bottomWidth: '600 nm', topWidth: '300 nm', depth: '200 nm' } })!;
+    expect(w.ridgeUm).toBeCloseTo(0.3, 14);
+    expect(w.grooveUm).toBeCloseTo(0.4, 14);
+    expect(featureWidths({ periodUm: 1, grating: { profile: 'sinusoidal', depth: '100 nm' } })).toBeNull();
   });
 });
 
