@@ -25,11 +25,13 @@ import { registerToleranceCommand } from './tolerance.ts';
  * solved here, exceeds this (ms): starting worker threads costs about a second or more each
  * (mostly loading the TypeScript engine), which smaller plans would not win back.
  */
-export const POOL_WORTH_MS = 3000;
+export const POOL_WORTH_MS = 3000; // e.g. 300 solves of 10 ms stay in-process, 300 of 50 ms go to the pool
 
 /**
  * The threshold the commands use: POOL_WORTH_MS, or FURROW_POOL_WORTH_MS from the environment —
  * a test hook, so tests can send small jobs to the threads on purpose (no other use).
+ * @example
+ * // FURROW_POOL_WORTH_MS=0 furrow tolerance … --workers 2   → the samples run on 2 threads
  */
 export function poolWorthMs(): number {
   const v = Number(process.env.FURROW_POOL_WORTH_MS);
@@ -40,7 +42,12 @@ function isRecord(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v);
 }
 
-/** The design file's object, its folder, and a reader for files it names. */
+/**
+ * The design file's object, its folder, and a reader for files it names (relative to it).
+ * @throws {CliFailure} when the file cannot be read; {InputError} when it is not a JSON object
+ * @example
+ * const { design, baseDir, readText } = readDesignFile('my-grating.json');
+ */
 export function readDesignFile(path: string): { design: Record<string, unknown>; baseDir: string; readText: (file: string) => string } {
   let text: string;
   try {
@@ -59,7 +66,12 @@ export function readDesignFile(path: string): { design: Record<string, unknown>;
   return { design, baseDir, readText: (file) => readFileSync(resolve(baseDir, file), 'utf8') };
 }
 
-/** --workers: a whole number 1…1024, default this machine's parallelism. */
+/**
+ * --workers: a whole number 1…1024, default this machine's parallelism.
+ * @throws {InputError} at '--workers'
+ * @example
+ * workersFlag('2'); // 2
+ */
 export function workersFlag(v: string | undefined): number {
   if (v === undefined) return availableParallelism();
   const n = Number(v);
@@ -81,6 +93,11 @@ export interface PoolRunner {
  * with the shared context, to measure the cost; the rest go to `workers` threads when they would
  * take more than `worthMs` here (default POOL_WORTH_MS), else they are solved here too. Either way every row is
  * `evaluatePoint`'s, so the numbers do not depend on the path. Rows come back in index order.
+ * @param worthMs estimated in-process time above which the pool is used (ms)
+ * @throws what `runPoints` throws (e.g. an `onRow` failure); a point's own failure is a row
+ * @example
+ * const pool = poolRunner(dir, 4, createEvalContext(), readText);
+ * await optimize(design, spec, { scanRunner: pool.run, scanRunnerName: pool.describe });
  */
 export function poolRunner(baseDir: string, workers: number, ctx: EvalContext, readText: (file: string) => string, worthMs = POOL_WORTH_MS): PoolRunner {
   let pooled = 0;
@@ -141,6 +158,9 @@ function wholeFlag(text: string, flag: string, lo: number, hi: number): number {
  * The quantity and conditions from flags, laid over a section's own: each flag replaces one field.
  * @param quantityKey 'objective' or 'efficiency'
  * @throws {InputError} naming the flag
+ * @example
+ * const s = {}; applyQuantityFlags(s, 'objective', { order: '-1', side: 'R', littrow: '-1' });
+ * // s → { objective: { order: -1, side: 'R' }, mount: { kind: 'littrow', order: -1 } }
  */
 export function applyQuantityFlags(section: Record<string, unknown>, quantityKey: string, f: QuantityFlags): void {
   const q: Record<string, unknown> = isRecord(section[quantityKey]) ? { ...(section[quantityKey] as Record<string, unknown>) } : {};
@@ -186,7 +206,11 @@ export function applyQuantityFlags(section: Record<string, unknown>, quantityKey
   }
 }
 
-/** Add the flags of {@link QuantityFlags} to a command. */
+/**
+ * Add the flags of {@link QuantityFlags} to a command.
+ * @example
+ * quantityOptions(program.command('optimize'), 'objective').option('--json');
+ */
 export function quantityOptions(c: Command, what: string): Command {
   return c
     .option('--order <m[,m…]>', `order of the ${what}; a list adds the orders' efficiencies (e.g. -1,1)`)
@@ -199,6 +223,11 @@ export function quantityOptions(c: Command, what: string): Command {
     .option('--deviation <m:deg>', 'constant-deviation mount: order m, angle between incident and diffracted beams');
 }
 
+/**
+ * Commander's accumulator for repeatable flags.
+ * @example
+ * .option('--vary <spec>', '…', collect, [])
+ */
 export function collect(v: string, prev: string[]): string[] {
   return [...prev, v];
 }
@@ -228,6 +257,8 @@ interface OptimizeFlags extends QuantityFlags {
  * `--vary grating.depth=100nm:1200nm` → { path, min, max }. Numbers stay numbers; text keeps its
  * unit (checked by the engine).
  * @throws {InputError} at '--vary'
+ * @example
+ * parseVaryFlag('grating.depth=100nm:1200nm'); // { path: 'grating.depth', min: '100nm', max: '1200nm' }
  */
 export function parseVaryFlag(text: string): { path: string; min: number | string; max: number | string } {
   const m = /^\s*([^=\s]+)\s*=\s*([^:]+?)\s*:\s*([^:]+?)\s*$/.exec(text);
@@ -304,7 +335,11 @@ const fx = (v: number | null, d = 6): string => (v === null ? '—' : v.toFixed(
 const num = (v: number): string => String(+v.toPrecision(7));
 const withUnit = (v: number, unit: string | null): string => (unit === 'deg' ? `${num(v)}°` : unit ? `${num(v)} ${unit}` : num(v));
 
-/** The optimize report as text lines. */
+/**
+ * The optimize report as text lines (efficiencies to 6 decimals, lengths in their unit).
+ * @example
+ * for (const l of optimizeReport(design.title, await optimize(design, spec))) console.log(l);
+ */
 export function optimizeReport(title: string, r: OptimizeResult): string[] {
   const L: string[] = [];
   const goal = r.objective.goal;

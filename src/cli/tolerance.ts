@@ -64,7 +64,12 @@ const num = (v: number): string => String(+v.toPrecision(6));
 const withUnit = (v: number, unit: string | null): string => (unit === 'deg' ? `${num(v)}°` : unit ? `${num(v)} ${unit}` : num(v));
 const sci = (v: number): string => (Number.isFinite(v) ? v.toExponential(3) : '—');
 
-/** The tolerance report as text lines. */
+/**
+ * The tolerance report as text lines (efficiencies to 6 decimals; sensitivities per parameter unit).
+ * @param ran how the samples ran (in-process, worker threads)
+ * @example
+ * for (const l of toleranceReport(design.title, await toleranceAnalysis(design, spec))) console.log(l);
+ */
 export function toleranceReport(title: string, r: ToleranceResult, ran = 'in-process'): string[] {
   const L: string[] = [];
   L.push(`design       ${title}`);

@@ -25,10 +25,18 @@ import type { Mount, SweepPlan, SweepRow } from '../sweep/types.ts';
 
 /** A length as text with its unit, e.g. "350 nm". */
 const LengthText = z.string().min(1, { error: 'expected a length with a unit, e.g. "350 nm"' });
-/** A value of a design field: a number, or text with a unit for lengths ("10 nm") and angles ("0.5 deg"). */
+/**
+ * A value of a design field: a number, or text with a unit for lengths ("10 nm") and angles ("0.5 deg").
+ * @example
+ * FieldValueSchema.parse('10 nm'); FieldValueSchema.parse(0.02);
+ */
 export const FieldValueSchema = z.union([z.number(), z.string().min(1)]);
 
-/** The fields of a quantity (shared by objectives, constraints and tolerance targets). */
+/**
+ * The fields of a quantity (shared by objectives, constraints and tolerance targets).
+ * @example
+ * z.strictObject({ ...quantityShape, min: z.number() }); // a constraint's rules
+ */
 export const quantityShape = {
   /** the order, or a list of orders whose efficiencies are added (e.g. [-1, 1]) */
   order: z.union([z.number().int({ error: 'expected a whole diffraction order' }), z.array(z.number().int({ error: 'expected whole diffraction orders' })).min(1, { error: 'give at least one order' })]),
@@ -40,12 +48,21 @@ export const quantityShape = {
   over: z.enum(['mean', 'min']).default('mean'),
 };
 
-/** An efficiency to measure. */
+/**
+ * An efficiency to measure (zod, strict; efficiencies are fractions 0…1 of the incident flux).
+ * @example
+ * QuantitySchema.parse({ order: [-1, 1], side: 'T' }); // → polarization 'unpolarized', over 'mean'
+ */
 export const QuantitySchema = z.strictObject(quantityShape);
 export type QuantityInput = z.input<typeof QuantitySchema>;
 export type Quantity = z.output<typeof QuantitySchema>;
 
-/** Wavelengths of use: a range ("from", "to", "count") or a list ("values"); lengths with units. */
+/**
+ * Wavelengths of use: a range ("from", "to", "count") or a list ("values"); lengths with units.
+ * Which form is given is checked by {@link bandWavelengths}.
+ * @example
+ * BandSchema.parse({ from: '1000 nm', to: '1060 nm', count: 7 });
+ */
 export const BandSchema = z.strictObject({
   from: LengthText.optional(),
   to: LengthText.optional(),
@@ -53,7 +70,12 @@ export const BandSchema = z.strictObject({
   values: z.array(LengthText).min(1, { error: 'give at least one wavelength' }).max(1000, { error: 'at most 1000 wavelengths' }).optional(),
 });
 
-/** The conditions of use shared by objective, constraints and tolerance targets. */
+/**
+ * The conditions of use shared by objective, constraints and tolerance targets: band, fixed
+ * angles (degrees), or a Littrow / constant-deviation mount (the sweep section's mount rules).
+ * @example
+ * z.strictObject({ ...conditionsShape }).parse({ mount: { kind: 'littrow', order: -1 } });
+ */
 export const conditionsShape = {
   /** wavelengths (default: the design's) */
   band: BandSchema.optional(),
@@ -63,7 +85,13 @@ export const conditionsShape = {
   mount: SweepSpecSchema.shape.mount,
 };
 
-/** Turn zod issues under a section into one InputError (one line per problem). */
+/**
+ * Turn zod issues under a section into one InputError (one line per problem; an unknown field is
+ * named in the path).
+ * @example
+ * sectionError('optimize', OptimizeSpecSchema.safeParse({ x: 1 }).error!).message;
+ * // 'optimize: these fields need changing:\n  - optimize.variables: …\n  - optimize.x: unknown field …'
+ */
 export function sectionError(section: string, err: z.ZodError): InputError {
   const lines = err.issues.flatMap((i) => {
     const path = section + i.path.map((p) => (typeof p === 'number' ? `[${p}]` : `.${String(p)}`)).join('');
@@ -139,7 +167,11 @@ export function parameterValue(p: DesignParameter, v: number | string, at: strin
   return out;
 }
 
-/** The value with its unit for messages: "350 nm", "8.6°", "0.5". */
+/**
+ * The value with its unit for messages: "350 nm", "8.6°", "0.5" (6 significant digits).
+ * @example
+ * showValue(depthParam, 350); // '350 nm'
+ */
 export function showValue(p: DesignParameter, v: number): string {
   const n = +v.toPrecision(6);
   return p.unit === 'deg' ? `${n}°` : p.unit ? `${n} ${p.unit}` : `${n}`;
@@ -198,6 +230,8 @@ export function withValues(design: unknown, params: ReadonlyArray<DesignParamete
  * Check that the design accepts a parameter value on its own (other parameters at the design's
  * values), so a bad bound is reported where it is written.
  * @throws {InputError} at `at`, quoting the design's complaint
+ * @example
+ * checkValue(design, dutyParam, 1.2, 'optimize.variables[0].max'); // throws: '1.2 makes the design invalid: …'
  */
 export function checkValue(design: unknown, p: DesignParameter, v: number, at: string, readText?: ReadText): void {
   if (p.field.kind !== 'length-text' && !p.field.accepts(v)) throw new InputError(at, `${showValue(p, v)} is not accepted by '${p.path}'`);
@@ -226,6 +260,9 @@ export interface Conditions {
  * Resolve the band, angles and mount of a section.
  * @param section 'optimize' or 'tolerance' (where errors point)
  * @throws {InputError}
+ * @example
+ * resolveConditions({ band: { values: ['1030 nm'] }, angles: [0, 5] }, 'optimize');
+ * // → { wavelengthsNm: [1030], anglesDeg: [0, 5], mount: { kind: 'fixed' } }
  */
 export function resolveConditions(s: { band?: z.output<typeof BandSchema> | undefined; angles?: number[] | undefined; mount?: Mount | undefined }, section: string): Conditions {
   const wavelengthsNm = s.band ? bandWavelengths(s.band, `${section}.band`) : null;
@@ -267,7 +304,12 @@ export function bandWavelengths(b: z.output<typeof BandSchema>, at: string): num
   return Array.from({ length: n }, (_, k) => (k === n - 1 ? hi : n === 1 ? lo : tidy(lo + ((hi - lo) * k) / (n - 1))));
 }
 
-/** Text of the conditions for reports: "7 wavelengths 1000–1060 nm × θ = 0°". */
+/**
+ * Text of the conditions for reports.
+ * @example
+ * describeConditions({ wavelengthsNm: [1000, 1030, 1060], anglesDeg: [0], mount: { kind: 'fixed' } });
+ * // '3 wavelengths 1000–1060 nm × θ = 0°'
+ */
 export function describeConditions(c: Conditions): string {
   const w = c.wavelengthsNm;
   const wl = w === null ? "the design's wavelength" : w.length === 1 ? `λ = ${w[0]} nm` : `${w.length} wavelengths ${Math.min(...w)}–${Math.max(...w)} nm`;
@@ -276,7 +318,11 @@ export function describeConditions(c: Conditions): string {
   return `${wl} × ${an}`;
 }
 
-/** Text of a quantity for reports: "T(+1) unpolarized, mean". */
+/**
+ * Text of a quantity for reports.
+ * @example
+ * describeQuantity({ order: [-1, 1], side: 'T', polarization: 'TE', over: 'mean' }); // 'T(-1 + +1) TE'
+ */
 export function describeQuantity(q: Quantity): string {
   const orders = (Array.isArray(q.order) ? q.order : [q.order]).map((m) => (m > 0 ? `+${m}` : `${m}`)).join(' + ');
   return `${q.side}(${orders}) ${q.polarization}${q.over === 'min' ? ', minimum over the conditions' : ''}`;
@@ -370,6 +416,10 @@ interface Condition {
  * Evaluates quantities of candidate designs (values of a list of parameters) under conditions of
  * use, through sweep plans. Counts the solves (one `solve()` per candidate and condition, both
  * polarizations at once).
+ * @example
+ * const ev = new DesignEvaluator(design, [depth], [{ order: -1, side: 'R', polarization: 'TE', over: 'mean' }],
+ *   { wavelengthsNm: null, anglesDeg: null, mount: { kind: 'littrow', order: -1 } }, 'optimize', ['x'], [300]);
+ * const [c] = await ev.evaluate([[320]], inProcessRunner()); c.values[0]; // R(−1) TE at 320 nm depth
  */
 export class DesignEvaluator {
   /** rows evaluated so far (each is one solve of TE and TM) */
@@ -512,7 +562,13 @@ export class DesignEvaluator {
   }
 }
 
-/** A quantity's value from its per-condition TE and TM efficiencies. */
+/**
+ * A quantity's value from its per-condition TE and TM efficiencies: TE, TM, their mean
+ * (unpolarized) or the smaller (worst) at each condition, then the mean or the minimum over the
+ * conditions. NaN for no conditions.
+ * @example
+ * combine({ order: 1, side: 'T', polarization: 'worst', over: 'mean' }, [{ te: 0.9, tm: 0.7 }, { te: 0.6, tm: 0.8 }]); // 0.65
+ */
 export function combine(q: Quantity, per: ReadonlyArray<{ readonly te: number; readonly tm: number }>): number {
   const vals = per.map(({ te, tm }) => (q.polarization === 'TE' ? te : q.polarization === 'TM' ? tm : q.polarization === 'worst' ? Math.min(te, tm) : 0.5 * (te + tm)));
   if (vals.length === 0) return Number.NaN;
@@ -523,6 +579,8 @@ export function combine(q: Quantity, per: ReadonlyArray<{ readonly te: number; r
  * The design file's object without the sections that are not part of the design ("sweep",
  * "optimize", "tolerance"), so the design schema (strict) accepts it.
  * @throws {InputError} when the design is not a JSON object
+ * @example
+ * designOnly({ periodNm: 500, optimize: {…}, … }); // → { periodNm: 500, … } (a copy)
  */
 export function designOnly(design: unknown): Record<string, unknown> {
   if (!isRecord(design)) throw new InputError('design', 'expected a JSON object');

@@ -19,7 +19,11 @@ export interface Random {
   below(n: number): number;
 }
 
-/** Largest seed accepted (seeds are whole numbers 0 … 2^32 − 1). */
+/**
+ * Largest seed accepted (seeds are whole numbers 0 … 2^32 − 1).
+ * @example
+ * createRandom(MAX_SEED); // the last valid stream
+ */
 export const MAX_SEED = 0xffffffff;
 
 function mix32(a: number): number {
