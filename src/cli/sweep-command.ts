@@ -8,7 +8,7 @@
  * - the closing summary: the command's normal output, or stderr when the rows use standard output;
  * - errors: one line through the CLI's error path (exit 2 for bad input, 130/143 when interrupted).
  */
-import { closeSync, existsSync, openSync, readFileSync, writeSync } from 'node:fs';
+import { closeSync, existsSync, fstatSync, ftruncateSync, openSync, readFileSync, writeSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import { dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
@@ -186,7 +186,7 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
   if (!toStdout) writeRunHeader(output, header(next === end, next - first, failedBefore, null));
 
   const outFd = fd;
-  const sink = outFd === null ? (t: string) => void process.stdout.write(t) : (t: string) => void writeSync(outFd, t);
+  const sink = outFd === null ? (t: string) => void process.stdout.write(t) : fileSink(outFd);
   const writer = new OrderedWriter(next, end, format, plan.columns, sink);
   const stop = new AbortController();
   const abort = new AbortController();
@@ -225,6 +225,13 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
       retriedBatches = summary.retriedBatches;
       threadFault = summary.threadFault;
     }
+  } catch (e) {
+    const io = e as NodeJS.ErrnoException;
+    if (typeof io.code === 'string' && io.syscall === 'write') {
+      const kept = toStdout ? '' : `; the ${writer.next - first} rows before are kept: make room and run again with --resume`;
+      throw new CliFailure(`cannot write ${toStdout ? 'standard output' : output}: ${io.code}${kept}`, 1);
+    }
+    throw e;
   } finally {
     progress.stop();
     process.off('SIGINT', onSignal);
@@ -232,7 +239,11 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
     if (outFd !== null) {
       closeSync(outFd);
       const complete = writer.next === end;
-      writeRunHeader(output, header(complete, writer.next - first, failedBefore + writer.failed, new Date().toISOString()));
+      try {
+        writeRunHeader(output, header(complete, writer.next - first, failedBefore + writer.failed, new Date().toISOString()));
+      } catch {
+        // e.g. a full disk: the header written at the start stays (it says "not complete"), and the error that stopped the run is the one to report
+      }
     }
   }
   const seconds = (performance.now() - t0) / 1000;
@@ -270,12 +281,39 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
   return result;
 }
 
-/** A problem with an output or shard file is the user's to fix: one line, exit code 2. */
+/**
+ * Appends text to the output, all of it (a short write is continued). If a write fails (a full
+ * disk), the file is cut back to its last complete row before the error goes on, so it stays a
+ * file of whole lines.
+ */
+function fileSink(fd: number): (text: string) => void {
+  let size = fstatSync(fd).size;
+  return (text) => {
+    const buf = Buffer.from(text);
+    try {
+      for (let off = 0; off < buf.length; ) off += writeSync(fd, buf, off, buf.length - off);
+      size += buf.length;
+    } catch (e) {
+      try {
+        ftruncateSync(fd, size);
+      } catch {
+        // the write's error is the one to report
+      }
+      throw e;
+    }
+  };
+}
+
+/** A problem with an output or shard file is the user's to fix: one line, exit code 2 (1 for a failed write, e.g. a full disk). */
 async function asCliFailure<T>(f: () => Promise<T>): Promise<T> {
   try {
     return await f();
   } catch (e) {
     if (e instanceof SweepFileError) throw new CliFailure(e.message, 2);
+    const io = e as NodeJS.ErrnoException;
+    if (typeof io.code === 'string' && typeof io.syscall === 'string' && !(e instanceof CliFailure)) {
+      throw new CliFailure(`cannot ${io.syscall} ${io.path ?? 'a sweep file'}: ${io.code}`, io.code === 'ENOENT' || io.code === 'EACCES' || io.code === 'EISDIR' ? 2 : 1);
+    }
     throw e;
   }
 }

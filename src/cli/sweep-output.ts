@@ -6,7 +6,7 @@
  * only complete lines (a defensive reader still drops an unterminated last line).
  */
 import { createHash } from 'node:crypto';
-import { closeSync, ftruncateSync, openSync, readFileSync, readSync, renameSync, writeFileSync } from 'node:fs';
+import { closeSync, ftruncateSync, openSync, readFileSync, readSync, renameSync, rmSync, writeFileSync } from 'node:fs';
 import { formatCell } from '../sweep/index.ts';
 import type { SweepPlan, SweepRow } from '../sweep/types.ts';
 
@@ -177,15 +177,17 @@ export class OrderedWriter {
     this.#pending.set(row.index, { text: rowText(this.format, this.columns, row.cells), failed: row.status === 'failed' });
     if (row.index !== this.#next) return;
     let chunk = '';
-    while (this.#pending.has(this.#next)) {
-      const row = this.#pending.get(this.#next)!;
-      if (row.failed) this.#failed++;
-      this.#pending.delete(this.#next);
-      chunk += row.text;
-      this.#next++;
-      this.#written++;
+    let upTo = this.#next;
+    let failed = 0;
+    for (let r = this.#pending.get(upTo); r !== undefined; r = this.#pending.get(++upTo)) {
+      chunk += r.text;
+      if (r.failed) failed++;
     }
-    this.sink(chunk);
+    this.sink(chunk); // if this throws, nothing counts as written and the rows stay pending
+    for (let i = this.#next; i < upTo; i++) this.#pending.delete(i);
+    this.#written += upTo - this.#next;
+    this.#failed += failed;
+    this.#next = upTo;
   }
 }
 
@@ -331,8 +333,13 @@ export function sidecarPath(output: string): string {
 /** Writes the run header atomically (a temporary file renamed over it). */
 export function writeRunHeader(output: string, h: RunHeader): void {
   const p = sidecarPath(output);
-  writeFileSync(`${p}.tmp`, `${JSON.stringify(h, null, 2)}\n`);
-  renameSync(`${p}.tmp`, p);
+  try {
+    writeFileSync(`${p}.tmp`, `${JSON.stringify(h, null, 2)}\n`);
+    renameSync(`${p}.tmp`, p);
+  } catch (e) {
+    rmSync(`${p}.tmp`, { force: true });
+    throw e;
+  }
 }
 
 /** Reads and checks the shape of a run header; SweepFileError when it is missing or malformed. */

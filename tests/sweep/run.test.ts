@@ -133,6 +133,15 @@ describe('ordered writing and reading back', () => {
     expect(() => w.add(row(12))).toThrow(RangeError);
   });
 
+  it('a write that fails (a full disk) counts nothing as written', () => {
+    const w = new OrderedWriter(0, 4, 'csv', columns, () => {
+      throw Object.assign(new Error('ENOSPC: no space left on device, write'), { code: 'ENOSPC', syscall: 'write' });
+    });
+    w.add(row(1));
+    expect(() => w.add(row(0))).toThrow(/ENOSPC/);
+    expect([w.next, w.written, w.failed]).toEqual([0, 0, 0]);
+  });
+
   it('a cut file is read back up to its last complete row; a row out of place is refused', () => {
     const d = tempDir();
     const text = `${columns.join(',')}\n${rowText('csv', columns, row(3).cells)}${rowText('csv', columns, row(4, true).cells)}`;
