@@ -6,7 +6,12 @@
  * - the run header: `<output>.run.json` beside a file output (none for standard output);
  * - the progress line: stderr, only on a terminal and without --quiet;
  * - the closing summary: the command's normal output, or stderr when the rows use standard output;
- * - errors: one line through the CLI's error path (exit 2 for bad input, 130/143 when interrupted).
+ * - errors: one line through the CLI's error path (exit 2 for bad input, 1 for a failed write,
+ *   130/143 when stopped by SIGINT/SIGTERM). With `-o -` an error or interruption message is
+ *   printed like every CLI error (on standard output, after the rows); the exit code tells.
+ *
+ * `--workers 1` evaluates on the main thread only; `--workers N` on the main thread and N − 1
+ * worker threads (see sweep-run.ts).
  */
 import { closeSync, existsSync, fstatSync, ftruncateSync, openSync, readFileSync, writeSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
