@@ -246,6 +246,17 @@ export async function optimize(design: unknown, spec: unknown, options: Optimize
   const quantities: Quantity[] = [s.objective, ...constraints];
   const goal = s.objective.goal;
 
+  // the design's own values (null where it gives none): the plan is checked at them, since the
+  // design is valid there, while a corner of the box may not be (the bounds are checked one by one)
+  const nominal: Array<number | null> = params.map((p, i) => {
+    try {
+      return nominalValue(base, p, `optimize.variables[${i}].path`);
+    } catch (e) {
+      if (e instanceof InputError) return null;
+      throw e;
+    }
+  });
+
   const ctx = options.context ?? createEvalContext();
   const run = inProcessRunner(readText, ctx);
   const scanRun = options.scanRunner ?? run;
@@ -256,7 +267,7 @@ export async function optimize(design: unknown, spec: unknown, options: Optimize
     conditions,
     'optimize',
     s.variables.map((_, i) => `optimize.variables[${i}].path`),
-    lo,
+    nominal.map((v, i) => v ?? lo[i]!),
     readText,
   );
   const nc = ev.conditionCount;
@@ -423,14 +434,6 @@ export async function optimize(design: unknown, spec: unknown, options: Optimize
 
   // the design as given
   let nominalObjective: number | null = null;
-  const nominal: Array<number | null> = params.map((p, i) => {
-    try {
-      return nominalValue(base, p, `optimize.variables[${i}].path`);
-    } catch (e) {
-      if (e instanceof InputError) return null;
-      throw e;
-    }
-  });
   if (nominal.every((v) => v !== null)) {
     const [c] = await ev.evaluate([nominal as number[]], run);
     nominalObjective = finite(c!.values[0]!);

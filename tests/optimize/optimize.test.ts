@@ -280,6 +280,26 @@ describe('optimize() evaluates cheaply and measures features as built', () => {
   });
 });
 
+describe('optimize() on boxes the design accepts only in part', () => {
+  it('searches a trapezoid box whose corner self-intersects, where it is valid (each bound alone is fine)', async () => {
+    // duty 0.5 of Λ = 1 µm: a sidewall α needs depth/tan α ≤ 0.5 µm (top width ≥ 0, structure/trapezoid.ts);
+    // the corner depth 1000 nm, α = 60° has 0.577 µm
+    const trap = { title: 'trapezoid', periodNm: 1000, cover: 'air', substrate: 1.45, grating: { profile: 'trapezoid', duty: 0.5, sidewallDeg: 85, depth: '300 nm' }, incidence: { wavelength: '800 nm', angleDeg: 23.6 }, orders: 8, slices: 6 };
+    const r = await optimize(trap, {
+      variables: [
+        { path: 'grating.depth', min: '1000 nm', max: '1500 nm' },
+        { path: 'grating.sidewallDeg', min: 60, max: 90 },
+      ],
+      objective: { order: -1, side: 'T', polarization: 'TE' },
+      scan: { points: 5 },
+    });
+    const [d, a] = r.variables.map((v) => v.value);
+    expect(d! / 1000 / Math.tan((a! * Math.PI) / 180)).toBeLessThanOrEqual(0.5 + 1e-9);
+    expect(r.feasible).toBe(true);
+    expect(r.objective.value!).toBeGreaterThan(0);
+  });
+});
+
 describe('optimize() says what is wrong with its section, naming the field', () => {
   const base = { variables: [{ path: 'grating.depth', min: '300 nm', max: '1800 nm' }], objective: { order: 1, side: 'T' } };
   const bad: Array<[string, unknown, RegExp]> = [
