@@ -11,11 +11,14 @@
  *               400), fixed mount. --orders and --slices replace the design's 25 and 20 (defaults
  *               here: 15 orders, 20 slices, to keep the run short; the design file's values with
  *               --orders 25). Workers 1 and 2.
- *   depth       a 20-slice dielectric sawtooth (Λ = 1 µm, n = 1.5 ridges in air on n = 1.5, λ =
- *               0.6 µm, θ = 10°, --depth-orders orders, default 25), blaze angle 5°…30° in --depth-points steps (default
- *               100): the groove depth Λ·tan θB changes while every slice keeps its fill, so each
- *               slice's modes can be reused. With the caches (one evaluation context per worker for
- *               the whole run) and without (a fresh context for every point). Workers 1 and 2.
+ *   depth       a 20-slice sawtooth as RCWA sees it: a 21-level staircase (multilevel, steps
+ *               21: 20 slices, the ridge of slice k spanning [k/21, 1) of the period, vertical
+ *               back wall), n = 1.5 ridges in air on n = 1.5, Λ = 1 µm, λ = 0.6 µm, θ = 10°,
+ *               --depth-orders orders (default 25); the blaze depth from 100 to 600 nm in
+ *               --depth-points steps (default 100). Every slice keeps its ridge while only the
+ *               slice thickness changes, so a worker solves each slice's modes once. With the
+ *               caches (one evaluation context per worker for the whole run) and without (a fresh
+ *               context for every point). Workers 1 and 2.
  *
  * What is timed: the whole run of `runPoints` as `furrow sweep` uses it (rows produced and
  * dropped, no file), from the call to the last row — so on 2 workers it includes starting the
@@ -101,6 +104,11 @@ interface Run {
   loadAverage: number;
 }
 
+function slicesOf(design: Record<string, unknown>): number {
+  const g = design.grating as Record<string, unknown>;
+  return typeof g.steps === 'number' ? g.steps - 1 : ((g.slices ?? design.slices) as number);
+}
+
 /** The fastest of `repeats` runs (the least disturbed by other processes). */
 async function bestRun(repeats: number, ...args: Parameters<typeof timeRun>): Promise<Run> {
   let best: Run | null = null;
@@ -139,7 +147,7 @@ async function timeRun(name: string, design: Record<string, unknown>, spec: Swee
     firstRowSeconds: firstS,
     steadyPointsPerSecond: (rows - 1) / Math.max(1e-9, s - firstS),
     orders: design.orders as number,
-    slices: ((design.grating as Record<string, unknown>).slices ?? design.slices) as number,
+    slices: slicesOf(design),
     loadAverage: loadavg()[0]!,
   };
 }
@@ -154,15 +162,15 @@ export async function runSweepBench(a: Args): Promise<Run[]> {
   }
   if (a.cases.includes('depth')) {
     const design = {
-      title: 'bench: 20-slice dielectric sawtooth',
+      title: 'bench: 20-slice sawtooth (21-level staircase)',
       period: '1 um',
       cover: 1,
       substrate: 1.5,
-      grating: { profile: 'sawtooth', blazeDeg: 17.5, ridge: 1.5, slices: 20 },
+      grating: { profile: 'multilevel', steps: 21, depth: '300 nm', ridge: 1.5 },
       incidence: { wavelength: '600 nm', angleDeg: 10 },
       orders: a.depthOrders,
     };
-    const spec: SweepSpec = { parameters: [{ path: 'grating.blazeDeg', from: 5, to: 30, count: a.depthPoints }] };
+    const spec: SweepSpec = { parameters: [{ path: 'grating.depth', from: '100nm', to: '600nm', count: a.depthPoints }] };
     for (const cache of [true, false]) for (const w of [1, 2]) runs.push(await bestRun(a.repeats, 'depth', design, spec, w, cache, ROOT));
   }
   return runs;
