@@ -4,8 +4,8 @@
  * (src/optimize) → a table or JSON.
  *
  * The coarse scan of `optimize` and the Monte Carlo samples of `tolerance` run on the sweep
- * runner's worker pool (`runPoints`) when --workers is above 1 and the work is large enough to
- * pay for starting threads ({@link POOL_WORTH_MS}); everything else (the sequential local search, the nominal
+ * runner's worker pool (`runPoints`) when --workers is above 1 and they outlast
+ * {@link POOL_WORTH_MS} on this thread; everything else (the sequential local search, the nominal
  * design, sensitivities, curves) runs on this thread with one shared evaluation context.
  */
 import { readFileSync } from 'node:fs';
@@ -21,11 +21,13 @@ import { runPoints } from './sweep-run.ts';
 import { registerToleranceCommand } from './tolerance.ts';
 
 /**
- * A plan goes to the worker pool only when its remaining work, estimated from the first rows
- * solved here, exceeds this (ms): starting worker threads costs about a second or more each
- * (mostly loading the TypeScript engine), which smaller plans would not win back.
+ * Time (ms) a plan runs on this thread before what remains of it goes to the worker pool:
+ * starting worker threads costs about a second or more each (mostly loading the TypeScript
+ * engine), which shorter plans would not win back.
+ * @example
+ * // 300 solves of 5 ms finish here (1.5 s); 300 of 50 ms: 60 here, 240 on the threads
  */
-export const POOL_WORTH_MS = 3000; // e.g. 300 solves of 10 ms stay in-process, 300 of 50 ms go to the pool
+export const POOL_WORTH_MS = 3000;
 
 /**
  * The threshold the commands use: POOL_WORTH_MS, or FURROW_POOL_WORTH_MS from the environment —
@@ -89,11 +91,13 @@ export interface PoolRunner {
 }
 
 /**
- * A plan runner on the sweep runner's worker pool (`runPoints`). The first rows are solved here,
- * with the shared context, to measure the cost; the rest go to `workers` threads when they would
- * take more than `worthMs` here (default POOL_WORTH_MS), else they are solved here too. Either way every row is
- * `evaluatePoint`'s, so the numbers do not depend on the path. Rows come back in index order.
- * @param worthMs estimated in-process time above which the pool is used (ms)
+ * A plan runner on the sweep runner's worker pool (`runPoints`). Rows are solved here, with the
+ * shared context (its cached eigenmodes), until the plan has taken `worthMs` (default
+ * POOL_WORTH_MS); whatever remains then goes to `workers` threads. So a plan that is quick here
+ * never pays for starting threads, and a long one loses at most `worthMs` of parallel time.
+ * Every row is `evaluatePoint`'s either way, so the numbers do not depend on the path. Rows come
+ * back in index order.
+ * @param worthMs time on this thread after which the rest of a plan goes to the pool (ms)
  * @throws what `runPoints` throws (e.g. an `onRow` failure); a point's own failure is a row
  * @example
  * const pool = poolRunner(dir, 4, createEvalContext(), readText);
@@ -105,19 +109,19 @@ export function poolRunner(baseDir: string, workers: number, ctx: EvalContext, r
     const rows: SweepRow[] = new Array(plan.count);
     const t0 = performance.now();
     let i = 0;
-    if (workers > 1) {
-      for (; i < plan.count && (i < 2 || (i < 8 && performance.now() - t0 < 200)); i++) rows[i] = evaluatePoint(plan, i, ctx, readText);
-      const perRow = (performance.now() - t0) / Math.max(1, i);
-      if (i < plan.count && perRow * (plan.count - i) > worthMs) {
+    for (; i < plan.count; i++) {
+      if (workers > 1 && i > 0 && performance.now() - t0 >= worthMs) {
         await runPoints({ plan, baseDir, first: i, end: plan.count, workers, onRow: (r) => (rows[r.index] = r) });
         pooled += plan.count - i;
         return rows;
       }
+      rows[i] = evaluatePoint(plan, i, ctx, readText);
     }
-    for (; i < plan.count; i++) rows[i] = evaluatePoint(plan, i, ctx, readText);
     return rows;
   };
-  return { run, pooledRows: () => pooled, describe: () => (pooled > 0 ? `${workers} worker threads` : workers > 1 ? 'in-process: too little work for the worker pool' : 'in-process') };
+  const describe = (): string =>
+    pooled > 0 ? `in-process, then ${workers} worker threads for ${pooled} solves` : workers > 1 ? `in-process: done within ${worthMs / 1000} s, before the worker pool was worth starting` : 'in-process';
+  return { run, pooledRows: () => pooled, describe };
 }
 
 /** Flags shared by both commands: the measured efficiency and its conditions. */
