@@ -12,7 +12,7 @@ import { ordersReport } from './orders.ts';
 import { registerFieldsCommand } from './fields.ts';
 import { registerSweepCommands } from './sweep-command.ts';
 import { registerViewCommand } from './view.ts';
-import { demoDesignRaw } from './demo.ts';
+import { runDemo } from './demo.ts';
 import { MaterialError, MaterialLibrary } from '../materials/index.ts';
 import { materialsList, materialsShow } from './materials.ts';
 import { designJsonSchema, designToModel, lengthUm, problemAt } from '../design/index.ts';
@@ -176,11 +176,11 @@ export function buildProgram(out: (s: string) => void): Command {
     .action(() => out(JSON.stringify({ $id: 'https://furrow.invalid/design.schema.json', title: 'Furrow design file', ...(designJsonSchema() as object) }, null, 2)));
   program
     .command('demo')
-    .description('solve the built-in example (a blazed aluminium spectrometer grating) and show the result')
-    .action(() => {
-      out('Furrow demo: a blazed, aluminium-coated reflection grating for a visible spectrometer, TE and TM.');
-      out('');
-      solveCommand(demoDesignRaw(), undefined, { orders: '25' }, out);
+    .description('sweep the example blazed aluminium grating over 400–700 nm in Littrow (TE, TM) and summarize its efficiency')
+    .option('--output <file.csv>', 'where the demo sweep writes its rows', 'furrow-demo.csv')
+    .option('--quiet', 'no progress line')
+    .action(async (o: { output: string; quiet?: boolean }) => {
+      await runDemo(out, o.output, !!o.quiet);
     });
   return program;
 }

@@ -43,10 +43,19 @@ describe('furrow CLI', () => {
     expect(r.text).toMatch(/\s1\s+36\.870/);
   });
 
-  it('`furrow demo` solves the built-in example and its lossless checks hold', async () => {
-    const r = await run('demo');
+  it('`furrow demo` sweeps the blazed example in Littrow and summarizes it: the blaze wavelength 2Λ·sinθB = 500.2 nm (common practice), peaks, 50 % band, energy balance', async () => {
+    const csv = join(dir, 'demo.csv');
+    const r = await run('demo', '--output', csv, '--quiet');
     expect(r.code).toBe(0);
-    expect(r.text).toMatch(/A = 1 − R − T/);
+    expect(r.text).toMatch(/blaze wavelength λB = 2Λ·sinθB = 500\.2 nm/);
+    const peak = /order −1, TE\s*: peak ([\d.]+) % at ([\d.]+) nm; above 50 % over (\d+)–(\d+) nm/.exec(r.text)!;
+    expect(Number(peak[1])).toBeGreaterThan(50);
+    expect(Number(peak[2])).toBeGreaterThanOrEqual(400);
+    expect(r.text).toMatch(/energy balance: R \+ T ≤ 1 at every point/);
+    const { readFileSync } = await import('node:fs');
+    const lines = readFileSync(csv, 'utf8').trim().split('\n');
+    expect(lines).toHaveLength(32); // header + 31 wavelengths
+    expect(lines[0]).toMatch(/^point_index,wavelength_nm,theta_deg,R_-1_TE/);
   });
 
   it('a malformed design gives a clear message and exit code 2, no stack trace', async () => {
