@@ -25,7 +25,9 @@
  * worker thread (it loads the engine: ~1–3 s, mostly the unit library). "first row" is the
  * time to the first row, "steady pt/s" the rate after it. One worker is the calling thread; two
  * are the calling thread and one worker thread. "load" is the 1-minute load average at the end of
- * the run: above the core count, other processes were taking CPU and the figures are low.
+ * the run: above the core count, other processes were taking CPU and the figures are low. "cpu s"
+ * is the CPU time of the whole process (all its threads) and "cores" that over the wall time:
+ * how many cores the run actually got — on a busy machine, fewer than its workers.
  *
  * Speed lives here, not in the unit tests: timings depend on the machine and its load.
  */
@@ -100,6 +102,10 @@ interface Run {
   steadyPointsPerSecond: number;
   orders: number;
   slices: number;
+  /** CPU time of the whole process (all threads) during the run, s */
+  cpuSeconds: number;
+  /** cpuSeconds / seconds: how many cores the run kept busy */
+  coresUsed: number;
   /** the machine's 1-minute load average when the run ended (other processes compete for the cores) */
   loadAverage: number;
 }
@@ -123,6 +129,7 @@ async function timeRun(name: string, design: Record<string, unknown>, spec: Swee
   const plan = planSweep(design, spec, (f) => readFileSync(resolve(baseDir, f), 'utf8'));
   let rows = 0;
   let first = 0;
+  const c0 = process.cpuUsage();
   const t0 = performance.now();
   await runPoints({
     plan,
@@ -136,6 +143,8 @@ async function timeRun(name: string, design: Record<string, unknown>, spec: Swee
     },
   });
   const s = (performance.now() - t0) / 1000;
+  const c = process.cpuUsage(c0);
+  const cpu = (c.user + c.system) / 1e6;
   const firstS = (first - t0) / 1000;
   return {
     case: name,
@@ -148,6 +157,8 @@ async function timeRun(name: string, design: Record<string, unknown>, spec: Swee
     steadyPointsPerSecond: (rows - 1) / Math.max(1e-9, s - firstS),
     orders: design.orders as number,
     slices: slicesOf(design),
+    cpuSeconds: cpu,
+    coresUsed: cpu / s,
     loadAverage: loadavg()[0]!,
   };
 }
@@ -177,7 +188,7 @@ export async function runSweepBench(a: Args): Promise<Run[]> {
 }
 
 function table(runs: Run[]): string[] {
-  const head = ['case', 'orders', 'slices', 'cache', 'workers', 'points', 'wall s', 'pt/s', 'speed-up', 'first row s', 'steady pt/s', 'load'];
+  const head = ['case', 'orders', 'slices', 'cache', 'workers', 'points', 'wall s', 'pt/s', 'speed-up', 'first row s', 'steady pt/s', 'cpu s', 'cores', 'load'];
   const rows = runs.map((r) => {
     const base = runs.find((q) => q.case === r.case && q.cache === r.cache && q.workers === 1);
     return [
@@ -192,6 +203,8 @@ function table(runs: Run[]): string[] {
       base ? `${(r.pointsPerSecond / base.pointsPerSecond).toFixed(2)}×` : '',
       r.firstRowSeconds.toFixed(2),
       r.steadyPointsPerSecond.toFixed(2),
+      r.cpuSeconds.toFixed(1),
+      r.coresUsed.toFixed(2),
       r.loadAverage.toFixed(1),
     ];
   });
