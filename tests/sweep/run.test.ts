@@ -11,6 +11,7 @@ import type { SweepRow } from '../../src/sweep/types.ts';
 import { csvField, OrderedWriter, rowText, scanRows, SweepFileError, sweepHash } from '../../src/cli/sweep-output.ts';
 import { packRows, unpackRows } from '../../src/cli/sweep-protocol.ts';
 import { runPoints } from '../../src/cli/sweep-run.ts';
+import { sweepCommand, type SweepFlags } from '../../src/cli/sweep-command.ts';
 import { specFromFlags } from '../../src/cli/sweep-spec.ts';
 import { expectedCsv, furrow, smallDesign, tempDir, writeJson } from './run-helpers.ts';
 
@@ -81,6 +82,32 @@ describe('furrow sweep, one worker and two', () => {
     expect(again.code).toBe(2);
     expect(again.stdout).toMatch(/one\.csv exists already: add --resume to continue it or --overwrite to replace it/);
     expect(readFileSync(join(dir, 'one.csv'), 'utf8')).toBe(before);
+  });
+});
+
+describe('resume on this thread', () => {
+  const flags = (output: string): SweepFlags => ({ param: ['incidence.wavelength=400nm:800nm:8'], output, workers: '1', quiet: true });
+  const run = (output: string, extra: Partial<SweepFlags> = {}) => sweepCommand(designPath, { ...flags(output), ...extra }, ['furrow', 'sweep'], () => {});
+
+  it('a JSON Lines file cut in the middle of a row is completed into the uninterrupted file', async () => {
+    const whole = join(dir, 'resume-whole.jsonl');
+    const cut = join(dir, 'resume-cut.jsonl');
+    await run(whole);
+    await run(cut);
+    const text = readFileSync(whole, 'utf8');
+    const at = text.split('\n').slice(0, 3).join('\n').length + 1 + 25; // three rows and 25 bytes of the fourth
+    writeFileSync(cut, text.slice(0, at));
+    const r = await run(cut, { resume: true });
+    expect(r).toMatchObject({ alreadyDone: 3, written: 5 });
+    expect(readFileSync(cut, 'utf8')).toBe(text);
+  });
+
+  it('--resume starts a file that does not exist yet, and leaves a complete one as it is', async () => {
+    const fresh = join(dir, 'resume-fresh.csv');
+    expect(await run(fresh, { resume: true })).toMatchObject({ alreadyDone: 0, written: 8 });
+    const before = readFileSync(fresh, 'utf8');
+    expect(await run(fresh, { resume: true })).toMatchObject({ alreadyDone: 8, written: 0 });
+    expect(readFileSync(fresh, 'utf8')).toBe(before);
   });
 });
 
