@@ -11,6 +11,7 @@ import { describeProblem, orderTable } from './format.ts';
 import { ordersReport } from './orders.ts';
 import { registerFieldsCommand } from './fields.ts';
 import { registerSweepCommands } from './sweep-command.ts';
+import { registerOptimizeCommands } from './optimize.ts';
 import { registerViewCommand } from './view.ts';
 import { runDemo } from './demo.ts';
 import { MaterialError, MaterialLibrary } from '../materials/index.ts';
@@ -166,6 +167,7 @@ export function buildProgram(out: (s: string) => void): Command {
       for (const l of lines) out(l);
     });
   registerSweepCommands(program, out);
+  registerOptimizeCommands(program, out);
   registerViewCommand(program, out);
   registerFieldsCommand(program, out, loadDesign, (msg) => {
     throw new CliFailure(msg);
