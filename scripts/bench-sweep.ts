@@ -29,6 +29,11 @@
  * is the CPU time of the whole process (all its threads) and "cores" that over the wall time:
  * how many cores the run actually got — on a busy machine, fewer than its workers.
  *
+ * Reading the figures on a 2-core machine: one worker already keeps about 1.3 cores busy (V8's
+ * background threads — garbage collection, compilation — next to the main thread; with node
+ * --single-threaded it is 1.0 core and about 20 % slower), so two workers can at best get
+ * 2/1.3 ≈ 1.5× more out of the two cores; a short run also pays the worker thread's start-up.
+ *
  * Speed lives here, not in the unit tests: timings depend on the machine and its load.
  */
 import { readFileSync } from 'node:fs';
