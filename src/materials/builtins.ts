@@ -1,7 +1,7 @@
 /**
  * The built-in material library. Every entry names its source and its valid range; numbers are
- * transcribed from the cited papers (the tests hold them against reference/materials.json, a
- * second transcription with the check values). Entries whose numbers were recalled rather than
+ * the published values of the cited papers (the tests hold them against reference/materials.json, a
+ * second copy with the check values). Entries whose numbers were recalled rather than
  * re-read carry `fromMemory` and the note 'from memory'.
  *
  * | id | model | source |

@@ -1,6 +1,6 @@
 /**
- * Every built-in entry against reference/materials.json: the coefficients and tables are a second
- * transcription of the cited papers (so a typo in either fails), and every check value is
+ * Every built-in entry against reference/materials.json: the coefficients and tables are written out
+ * twice, here and in the code (so a typo in either fails), and every check value is
  * reproduced to the digits its source gives (half a unit in the last digit).
  */
 import { describe, expect, it } from 'vitest';
