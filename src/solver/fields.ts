@@ -14,7 +14,7 @@
 import { cmatrix, type CMatrix } from '../linalg/index.ts';
 import { ModeCache } from './cache.ts';
 import { SolverError } from './errors.ts';
-import { permittivityOf } from './fourier.ts';
+import { indexFromPermittivity, permittivityOf } from './fourier.ts';
 import type { Modes } from './modes.ts';
 import { familyMedia, jonesOf, setupProblem } from './solve.ts';
 import { phase, solveStack } from './stack.ts';
@@ -335,9 +335,7 @@ function indexAt(s: Structure, region: number, xUm: number): Complex {
   // continuous profile: report its mean permittivity's index
   const K = (p.permittivity.length - 1) / 2;
   const c = p.permittivity[K]!;
-  const mod = Math.hypot(c.re, c.im);
-  const re = Math.sqrt(0.5 * (mod + c.re));
-  return { re, im: re > 0 ? c.im / (2 * re) : Math.sqrt(0.5 * (mod - c.re)) };
+  return indexFromPermittivity(c.re, c.im);
 }
 
 /** ε at x in a region. */

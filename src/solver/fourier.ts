@@ -6,7 +6,15 @@
  *   c_k = Σ_segments v·(exp(−i2πk·a) − exp(−i2πk·b)) / (i2πk),   c_0 = Σ v·(b − a),
  * for a segment of value v on [a, b) (fractions of the period).
  */
+import { zsqrtPrincipal } from '../linalg/index.ts';
 import type { Complex, Profile, Segment } from './types.ts';
+
+/** ñ = √ε on the principal branch (n ≥ 0; κ ≥ 0 for an absorbing ε), the inverse of permittivityOf. */
+export function indexFromPermittivity(re: number, im: number): Complex {
+  const out = new Float64Array(2);
+  zsqrtPrincipal(re, im, out, 0);
+  return { re: out[0]!, im: out[1]! };
+}
 
 /** ε = ñ² as [re, im]. */
 export function permittivityOf(n: Complex): [number, number] {

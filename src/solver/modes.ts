@@ -26,10 +26,13 @@
  */
 import {
   cmatrix,
+  conjTranspose,
   type CMatrix,
   LinalgError,
   type LUFactors,
   toeplitz,
+  zdiagLeft,
+  zdiagRight,
   zgemm,
   zgetrf,
   zgetri,
@@ -39,6 +42,7 @@ import {
 } from '../linalg/index.ts';
 import { zgeev } from '../linalg/zgeev.ts';
 import { zheev } from '../linalg/zheev.ts';
+import { indexFromPermittivity } from './fourier.ts';
 
 /** Tangential-field matrices of one medium, with the operations the recursion needs. */
 export interface Modes {
@@ -120,9 +124,7 @@ export function homogeneousModes(
     return new DiagModes(N, q, w, diagOnes(N));
   }
   // conical: s-mode and p-mode per order; (ux, uy) = (kx, ky)/|kt|
-  const n = new Float64Array(2);
-  zsqrtUpper(eps[0], eps[1], n, 0);
-  const [nr, ni] = [n[0]!, n[1]!];
+  const { re: nr, im: ni } = indexFromPermittivity(eps[0], eps[1]);
   const nn = nr * nr + ni * ni;
   const W = new BlockModes(N, q);
   for (let i = 0; i < N; i++) {
@@ -163,7 +165,7 @@ class DiagModes implements Modes {
     this.vInv = invertDiag(v);
   }
   mulW(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
-    return scaleRows(out, this.w, m);
+    return zdiagLeft(out, this.w, m);
   }
   denseW(out: CMatrix): CMatrix {
     return diagInto(out, this.w);
@@ -172,13 +174,13 @@ class DiagModes implements Modes {
     return diagInto(out, this.v);
   }
   mulV(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
-    return scaleRows(out, this.v, m);
+    return zdiagLeft(out, this.v, m);
   }
   solveW(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
-    return scaleRows(out, this.wInv, m);
+    return zdiagLeft(out, this.wInv, m);
   }
   solveV(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
-    return scaleRows(out, this.vInv, m);
+    return zdiagLeft(out, this.vInv, m);
   }
 }
 
@@ -192,6 +194,10 @@ function diagInto(out: CMatrix, d: Float64Array): CMatrix {
   return out;
 }
 
+function negated(d: Float64Array): Float64Array {
+  return d.map((v) => -v);
+}
+
 function invertDiag(d: Float64Array): Float64Array {
   const o = new Float64Array(d.length);
   for (let k = 0; k < d.length; k += 2) {
@@ -202,24 +208,6 @@ function invertDiag(d: Float64Array): Float64Array {
     o[k + 1] = -i / s;
   }
   return o;
-}
-
-/** out = diag(d)·m, out may alias m. */
-function scaleRows(out: CMatrix, d: Float64Array, m: Readonly<CMatrix>): CMatrix {
-  const c2 = 2 * m.cols;
-  const s = m.data;
-  const o = out.data;
-  for (let i = 0; i < m.rows; i++) {
-    const dr = d[2 * i]!;
-    const di = d[2 * i + 1]!;
-    for (let p = i * c2; p < (i + 1) * c2; p += 2) {
-      const xr = s[p]!;
-      const xi = s[p + 1]!;
-      o[p] = dr * xr - di * xi;
-      o[p + 1] = dr * xi + di * xr;
-    }
-  }
-  return out;
 }
 
 /**
@@ -351,6 +339,8 @@ function applyBlocks(out: CMatrix, b: Float64Array, N: number, m: Readonly<CMatr
 class DenseModes implements Modes {
   private readonly luW: LUFactors;
   private readonly luV: LUFactors | null;
+  /** −1/q per mode, when V = −W·diag(q) */
+  private readonly negInvQ: Float64Array | null;
   constructor(
     readonly n: number,
     readonly q: Float64Array,
@@ -361,6 +351,7 @@ class DenseModes implements Modes {
     this.luW = zgetrf(W);
     // V = −W·diag(q) (classical TE) needs no factorization of its own: V⁻¹ = −diag(1/q)·W⁻¹
     this.luV = vIsMinusWq ? null : zgetrf(V);
+    this.negInvQ = vIsMinusWq ? negated(invertDiag(q)) : null;
   }
   mulW(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
     return zgemm(out, this.W, m);
@@ -382,23 +373,7 @@ class DenseModes implements Modes {
   solveV(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
     if (this.luV) return zgetrs(this.luV, m, out) as CMatrix;
     zgetrs(this.luW, m, out);
-    // −diag(1/q)
-    const o = out.data;
-    const c2 = 2 * m.cols;
-    for (let i = 0; i < this.n; i++) {
-      const qr = this.q[2 * i]!;
-      const qi = this.q[2 * i + 1]!;
-      const s = qr * qr + qi * qi;
-      const ir = -qr / s;
-      const ii = qi / s;
-      for (let p = i * c2; p < (i + 1) * c2; p += 2) {
-        const xr = o[p]!;
-        const xi = o[p + 1]!;
-        o[p] = ir * xr - ii * xi;
-        o[p + 1] = ir * xi + ii * xr;
-      }
-    }
-    return out;
+    return zdiagLeft(out, this.negInvQ!, out);
   }
 }
 
@@ -429,8 +404,7 @@ export function modulatedModes(inp: ModulatedLayerInput): Modes {
   if (family === 'TE') {
     const { w, q } = eigenE(E, kx, ky, inp);
     // V = −W·diag(q)
-    const V = cmatrix(N, N);
-    mulDiagRight(V, w, q, -1);
+    const V = zdiagRight(cmatrix(N, N), w, negated(q));
     return new DenseModes(N, q, w, V, true);
   }
   const D = zgetri(E) as CMatrix; // E⁻¹
@@ -450,9 +424,7 @@ export function modulatedModes(inp: ModulatedLayerInput): Modes {
   const qInv = invertDiag(qH);
   const BW = zgemm(cmatrix(N, N), B, WH);
   if (family === 'TM') {
-    const W = cmatrix(N, N);
-    mulDiagRight(W, BW, qInv, 1);
-    return new DenseModes(N, qH, W, WH, false);
+    return new DenseModes(N, qH, zdiagRight(cmatrix(N, N), BW, qInv), WH, false);
   }
   // conical: both families
   const { w: WE, q: qE } = eigenE(E, kx, ky, inp);
@@ -530,22 +502,6 @@ export function modulatedModes(inp: ModulatedLayerInput): Modes {
   return new DenseModes(n, qAll, W, V, false);
 }
 
-/** out = a·diag(d)·sign. */
-function mulDiagRight(out: CMatrix, a: Readonly<CMatrix>, d: Float64Array, sign: number): void {
-  const N = a.cols;
-  for (let i = 0; i < a.rows; i++) {
-    for (let j = 0; j < N; j++) {
-      const p = 2 * (i * N + j);
-      const xr = a.data[p]!;
-      const xi = a.data[p + 1]!;
-      const dr = d[2 * j]!;
-      const di = d[2 * j + 1]!;
-      out.data[p] = sign * (xr * dr - xi * di);
-      out.data[p + 1] = sign * (xr * di + xi * dr);
-    }
-  }
-}
-
 /** E-type modes: eigen of Ω_E = E − Kx² − ky². */
 function eigenE(E: CMatrix, kx: Float64Array, ky: number, inp: ModulatedLayerInput): { w: CMatrix; q: Float64Array } {
   const N = kx.length;
@@ -579,7 +535,7 @@ function eigenH(Ep: CMatrix, B: CMatrix, ky: number, inp: ModulatedLayerInput): 
     }
     if (L) {
       const BL = zgemm(cmatrix(N, N), B, L);
-      const LH = conjT(L);
+      const LH = conjTranspose(L);
       const H = zgemm(cmatrix(N, N), LH, BL);
       // enforce exact Hermitian symmetry lost to round-off in the two products
       symmetrize(H);
@@ -594,18 +550,6 @@ function eigenH(Ep: CMatrix, B: CMatrix, ky: number, inp: ModulatedLayerInput): 
   const r = zgeev(omega);
   for (let k = 0; k < N; k++) propagationConstant(r.values[2 * k]!, r.values[2 * k + 1]!, q, k);
   return { w: r.vectors!, q };
-}
-
-function conjT(a: CMatrix): CMatrix {
-  const n = a.rows;
-  const o = cmatrix(n, n);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      o.data[2 * (j * n + i)] = a.data[2 * (i * n + j)]!;
-      o.data[2 * (j * n + i) + 1] = -a.data[2 * (i * n + j) + 1]!;
-    }
-  }
-  return o;
 }
 
 function symmetrize(h: CMatrix): void {

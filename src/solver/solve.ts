@@ -9,10 +9,10 @@
  * stable recursion over the layers (see stack.ts). Homogeneous layers and half-spaces are
  * solved analytically; lossless modulated layers use the Hermitian eigen path.
  */
-import { cmatrix, type CMatrix, LinalgError } from '../linalg/index.ts';
+import { cmatrix, type CMatrix, LinalgError, zsqrtUpper } from '../linalg/index.ts';
 import { SolverError } from './errors.ts';
 import { directionAngles } from './grating-equation.ts';
-import { isLossless, permittivityOf, profileCoefficients } from './fourier.ts';
+import { indexFromPermittivity, isLossless, permittivityOf, profileCoefficients } from './fourier.ts';
 import { type Family, homogeneousModes, type Modes, modulatedModes } from './modes.ts';
 import { solveStack } from './stack.ts';
 import { ModeCache } from './cache.ts';
@@ -252,11 +252,7 @@ function uniformIndex(p: Profile): Complex | null {
   }
   // ε constant: index = √ε0
   const c0 = p.permittivity[K]!;
-  const out = new Float64Array(2);
-  const mod = Math.hypot(c0.re, c0.im);
-  out[0] = Math.sqrt(0.5 * (mod + c0.re));
-  out[1] = c0.im === 0 ? 0 : c0.im / (2 * out[0]);
-  return { re: out[0], im: out[1] };
+  return indexFromPermittivity(c0.re, c0.im);
 }
 
 /**
@@ -338,15 +334,9 @@ function orderResults(
   incFlux: number,
 ): OrderResult[] {
   const all: OrderResult[] = [];
-  const nIdx = new Float64Array(2);
   const { kx, ky } = g;
-  // √ε with Im ≥ 0
-  {
-    const mod = Math.hypot(eps[0], eps[1]);
-    nIdx[0] = Math.sqrt(Math.max(0, 0.5 * (mod + eps[0])));
-    nIdx[1] = nIdx[0] > 0 ? eps[1] / (2 * nIdx[0]) : Math.sqrt(Math.max(0, 0.5 * (mod - eps[0])));
-  }
-  const [nr, ni] = [nIdx[0]!, nIdx[1]!];
+  const { re: nr, im: ni } = indexFromPermittivity(eps[0], eps[1]);
+  const q = new Float64Array(2);
   for (let i = 0; i < kx.length; i++) {
     const o = 8 * i;
     const Ex = [f[o]!, f[o + 1]!] as const;
@@ -366,18 +356,8 @@ function orderResults(
     // the order's own s and p: s = (−uy, ux, 0); p = (ux·kz, uy·kz, −kt)/n
     const ux = kt > 1e-12 ? kx[i]! / kt : g.az[0];
     const uy = kt > 1e-12 ? ky / kt : g.az[1];
-    const q = new Float64Array(2);
-    {
-      // q = √(ε − kt²) upper branch
-      const a = eps[0] - kt * kt;
-      const b = eps[1];
-      const mod = Math.hypot(a, b);
-      let qr = Math.sqrt(Math.max(0, 0.5 * (mod + a)));
-      let qi = Math.sqrt(Math.max(0, 0.5 * (mod - a)));
-      if (b < 0) qr = -qr;
-      q[0] = qr;
-      q[1] = qi;
-    }
+    // q = √(ε − kt²) on the decaying/outgoing branch
+    zsqrtUpper(eps[0] - kt * kt, eps[1], q, 0);
     const kzr = dir * q[0]!;
     const kzi = dir * q[1]!;
     // amplitudeS = E·s

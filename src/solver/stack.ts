@@ -14,7 +14,7 @@
  * S = (A + B)/2 and Δ = (A − B)/2:  c'+ = S⁻¹c+ and c− = Δ·S⁻¹·c+, so the reflection matrix
  * at the bottom of medium j is Δ·S⁻¹ and at its top X·Δ·S⁻¹·X.
  */
-import { cmatrix, type CMatrix, type LUFactors, zgetrf, zgetrs, zgetrsT, zgemm } from '../linalg/index.ts';
+import { cmatrix, type CMatrix, type LUFactors, zdiagLeft, zgetrf, zgetrs, zgetrsT, zgemm } from '../linalg/index.ts';
 import type { Modes } from './modes.ts';
 
 export interface StackResult {
@@ -112,7 +112,7 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
   for (let j = 1; j <= L; j++) {
     const forwardTop = keepInterior ? { rows: n, cols: c, data: cur.data.slice() } : null;
     const x = phase(media[j]!.q, thickness[j]!);
-    scaleRowsBy(cur, x);
+    zdiagLeft(cur, x, cur);
     if (forwardTop) interior.push({ forwardTop, backwardBottom: zgemm(cmatrix(n, c), rBottom[j]!, cur) });
     cur = zgetrsT(lus[j]!, cur, cur) as CMatrix;
   }
@@ -185,21 +185,6 @@ function scaleBoth(r: CMatrix, x: Float64Array): void {
       const vi = d[p + 1]!;
       d[p] = sr * vr - si * vi;
       d[p + 1] = sr * vi + si * vr;
-    }
-  }
-}
-
-function scaleRowsBy(m: CMatrix, x: Float64Array): void {
-  const c2 = 2 * m.cols;
-  const d = m.data;
-  for (let i = 0; i < m.rows; i++) {
-    const xr = x[2 * i]!;
-    const xi = x[2 * i + 1]!;
-    for (let p = i * c2; p < (i + 1) * c2; p += 2) {
-      const vr = d[p]!;
-      const vi = d[p + 1]!;
-      d[p] = xr * vr - xi * vi;
-      d[p + 1] = xr * vi + xi * vr;
     }
   }
 }
