@@ -2,14 +2,14 @@
  * The `furrow` command line. Thin: it reads files, calls the library and prints. Every error a
  * user can cause is printed as one clear message (exit code 2), never a stack trace.
  */
-import { readFileSync } from 'node:fs';
-import { dirname, resolve } from 'node:path';
 import { Command, CommanderError } from 'commander';
 import { InputError, type Problem } from '../design/index.ts';
 import { SolverError, SOLVER_VERSION } from '../solver/index.ts';
 import { describeProblem, orderTable } from './format.ts';
 import { ordersReport } from './orders.ts';
 import { registerFieldsCommand } from './fields.ts';
+import { CliFailure } from './errors.ts';
+import { readDesignFile } from './design-file.ts';
 import { registerSweepCommands } from './sweep-command.ts';
 import { registerOptimizeCommands } from './optimize.ts';
 import { registerViewCommand } from './view.ts';
@@ -19,37 +19,11 @@ import { materialsList, materialsShow } from './materials.ts';
 import { designJsonSchema, designToModel, lengthUm, problemAt } from '../design/index.ts';
 import { type ConvergedResult, solveConverged } from '../optimize/index.ts';
 
-/** A user-facing failure: message and exit code. */
-export class CliFailure extends Error {
-  constructor(
-    message: string,
-    readonly exitCode = 2,
-  ) {
-    super(message);
-  }
-}
-
-/** The design file's object and a reader for files it names (relative to it). */
-function readDesign(path: string): { raw: unknown; readText: (file: string) => string } {
-  let text: string;
-  try {
-    text = readFileSync(path, 'utf8');
-  } catch (e) {
-    throw new CliFailure(`cannot read design file ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
-  }
-  let raw: unknown;
-  try {
-    raw = JSON.parse(text);
-  } catch (e) {
-    throw new InputError(path, `not valid JSON: ${(e as Error).message}`);
-  }
-  const dir = dirname(resolve(path));
-  return { raw, readText: (file) => readFileSync(resolve(dir, file), 'utf8') };
-}
+export { CliFailure };
 
 function loadDesign(path: string): Problem {
-  const { raw, readText } = readDesign(path);
-  return problemAt(designToModel(raw, readText));
+  const { design, readText } = readDesignFile(path);
+  return problemAt(designToModel(design, readText));
 }
 
 function parseLevel(flag: string, v: string | undefined, max: number): 'auto' | number | undefined {
@@ -133,7 +107,7 @@ export function buildProgram(out: (s: string) => void): Command {
     .option('--tolerance <abs>', 'convergence tolerance on every efficiency (default 1e-4)')
     .option('--max-orders <M>', 'ceiling for --orders auto (default 2.5× the start, at least 40)')
     .action((design: string, opts: { json?: boolean; orders?: string; slices?: string; tolerance?: string; maxOrders?: string }) => {
-      const { raw, readText } = readDesign(design);
+      const { design: raw, readText } = readDesignFile(design);
       solveCommand(raw, readText, opts, out);
     });
   program

@@ -8,15 +8,13 @@
  * {@link POOL_WORTH_MS} on this thread; everything else (the sequential local search, the nominal
  * design, sensitivities, curves) runs on this thread with one shared evaluation context.
  */
-import { readFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
-import { dirname, resolve } from 'node:path';
 import type { Command } from 'commander';
 import { InputError } from '../design/index.ts';
 import { optimize, type OptimizeResult, type PlanRunner } from '../optimize/index.ts';
 import { createEvalContext, type EvalContext, evaluatePoint } from '../sweep/index.ts';
 import type { SweepRow } from '../sweep/types.ts';
-import { CliFailure } from './main.ts';
+import { readDesignFile } from './design-file.ts';
 import { runPoints } from './sweep-run.ts';
 import { registerToleranceCommand } from './tolerance.ts';
 
@@ -42,30 +40,6 @@ export function poolWorthMs(): number {
 
 function isRecord(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v);
-}
-
-/**
- * The design file's object, its folder, and a reader for files it names (relative to it).
- * @throws {CliFailure} when the file cannot be read; {InputError} when it is not a JSON object
- * @example
- * const { design, baseDir, readText } = readDesignFile('my-grating.json');
- */
-export function readDesignFile(path: string): { design: Record<string, unknown>; baseDir: string; readText: (file: string) => string } {
-  let text: string;
-  try {
-    text = readFileSync(path, 'utf8');
-  } catch (e) {
-    throw new CliFailure(`cannot read design file ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
-  }
-  let design: unknown;
-  try {
-    design = JSON.parse(text);
-  } catch (e) {
-    throw new InputError(path, `not valid JSON: ${(e as Error).message}`);
-  }
-  if (!isRecord(design)) throw new InputError(path, 'expected a JSON object (a design file)');
-  const baseDir = dirname(resolve(path));
-  return { design, baseDir, readText: (file) => readFileSync(resolve(baseDir, file), 'utf8') };
 }
 
 /**

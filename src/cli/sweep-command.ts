@@ -15,13 +15,14 @@
  */
 import { closeSync, existsSync, fstatSync, ftruncateSync, openSync, readFileSync, writeSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
-import { dirname, resolve } from 'node:path';
+import { resolve } from 'node:path';
 import type { Command } from 'commander';
 import { InputError } from '../design/index.ts';
 import { SOLVER_VERSION } from '../solver/index.ts';
 import { planSweep, type SweepSpec } from '../sweep/index.ts';
 import type { SweepPlan } from '../sweep/types.ts';
-import { CliFailure } from './main.ts';
+import { CliFailure } from './errors.ts';
+import { readDesignFile } from './design-file.ts';
 import { mergeShards } from './merge.ts';
 import { createProgress } from './progress.ts';
 import {
@@ -64,20 +65,6 @@ function chooseFormat(flag: string | undefined, output: string): SweepFormat {
   if (flag === undefined) return /\.(jsonl|ndjson)$/i.test(output) ? 'jsonl' : 'csv';
   if (flag === 'csv' || flag === 'jsonl') return flag;
   throw new InputError('--format', `expected csv or jsonl, found "${flag}"`);
-}
-
-function readDesign(path: string): { design: unknown; baseDir: string } {
-  let text: string;
-  try {
-    text = readFileSync(path, 'utf8');
-  } catch (e) {
-    throw new CliFailure(`cannot read design file ${path}: ${(e as NodeJS.ErrnoException).code ?? (e as Error).message}`);
-  }
-  try {
-    return { design: JSON.parse(text) as unknown, baseDir: dirname(resolve(path)) };
-  } catch (e) {
-    throw new InputError(path, `not valid JSON: ${(e as Error).message}`);
-  }
 }
 
 function numberOrNull(v: unknown): number | null {
@@ -126,7 +113,7 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
   if (toStdout && flags.resume) throw new InputError('--resume', 'standard output cannot be resumed: give --output FILE');
   const format = chooseFormat(flags.format, output);
 
-  const { design, baseDir } = readDesign(designPath);
+  const { design, baseDir } = readDesignFile(designPath);
   const filesRead = new Map<string, string>();
   const readText = (file: string): string => {
     const t = readFileSync(resolve(baseDir, file), 'utf8');

@@ -8,7 +8,8 @@ import type { Command } from 'commander';
 import { InputError } from '../design/index.ts';
 import { toleranceAnalysis, type ToleranceResult } from '../optimize/index.ts';
 import { createEvalContext } from '../sweep/index.ts';
-import { applyQuantityFlags, collect, poolRunner, poolWorthMs, type QuantityFlags, quantityOptions, readDesignFile, workersFlag } from './optimize.ts';
+import { applyQuantityFlags, collect, poolRunner, poolWorthMs, type QuantityFlags, quantityOptions, workersFlag } from './optimize.ts';
+import { readDesignFile } from './design-file.ts';
 
 interface ToleranceFlags extends QuantityFlags {
   param: string[];

@@ -17,7 +17,7 @@ import { basename, dirname, extname, isAbsolute, join, relative, resolve, sep } 
 import { fileURLToPath } from 'node:url';
 import type { Command } from 'commander';
 import { InputError } from '../design/index.ts';
-import { CliFailure } from './main.ts';
+import { CliFailure } from './errors.ts';
 
 /** src/web: the page's sources and its vite config. */
 export const WEB_ROOT = fileURLToPath(new URL('../web/', import.meta.url));
