@@ -9,3 +9,4 @@ export { DEFAULT_OUTPUTS, parseParameterFlag, type SweepParameterSpec, type Swee
 export { designAt, MAX_POINTS, planSweep } from './plan.ts';
 export { pointAt } from './point.ts';
 export { createEvalContext, type EvalContext, type EvalContextOptions, evaluatePoint, formatCell } from './evaluate.ts';
+export { headerText, rowText, type SweepFormat } from './rows-text.ts';
