@@ -11,7 +11,7 @@
  * Fields are normalized to the incident wave: |E_inc| = 1 (H' = Z0·H, so |H'_inc| = n_cover).
  * Time dependence exp(−iωt); the y-dependence exp(i·ky·y) is taken at y = 0.
  */
-import { cmatrix, type CMatrix } from '../linalg/index.ts';
+import { cmatrix, type CMatrix, zgemmBase } from '../linalg/index.ts';
 import { ModeCache } from './cache.ts';
 import { SolverError } from './errors.ts';
 import { indexFromPermittivity, permittivityOf } from './fourier.ts';
@@ -139,6 +139,21 @@ export function nearField(
     }
   }
 
+  // ε(x) along the x samples, once per region
+  const epsRows = new Map<number, Float64Array>();
+  const epsRow = (region: number): Float64Array => {
+    let r = epsRows.get(region);
+    if (!r) {
+      r = new Float64Array(2 * nx);
+      for (let i = 0; i < nx; i++) {
+        const [er, ei] = epsAt(structure, region, xUm[i]!);
+        r[2 * i] = er;
+        r[2 * i + 1] = ei;
+      }
+      epsRows.set(region, r);
+    }
+    return r;
+  };
   for (const family of setup.families) {
     const { media, thickness, inc } = familyMedia(setup, structure, incidence, family, store);
     const res = solveStack(media, thickness, inc, true);
@@ -176,6 +191,16 @@ export function nearField(
     const b = new Float64Array(2 * n);
     const sum = new Float64Array(2 * n);
     const dif = new Float64Array(2 * n);
+    const e = new Float64Array(2 * n);
+    const h = new Float64Array(2 * n);
+    // Fourier coefficients of the components at one z, reused for every z
+    const fx = new Float64Array(2 * N);
+    const fy = new Float64Array(2 * N);
+    const gx = new Float64Array(2 * N);
+    const gy = new Float64Array(2 * N);
+    const gz = new Float64Array(2 * N);
+    const dz = new Float64Array(2 * N);
+    const dzx = new Float64Array(2 * nx);
     for (let iz = 0; iz < nz; iz++) {
       const z = zList[iz]!;
       const region = rList[iz]!;
@@ -199,17 +224,16 @@ export function nearField(
         dif[k] = a[k]! - b[k]!;
       }
       const { W, V } = wv(modes);
-      const e = matVec(W, sum);
-      const h = matVec(V, dif);
-      // Fourier coefficients of the six components
-      const fx = new Float64Array(2 * N);
-      const fy = new Float64Array(2 * N);
-      const gx = new Float64Array(2 * N);
-      const gy = new Float64Array(2 * N);
+      zgemmBase(n, 1, n, 1, 0, W.data, sum, 0, 0, e);
+      zgemmBase(n, 1, n, 1, 0, V.data, dif, 0, 0, h);
       if (family === 'TE') {
+        fx.fill(0);
+        gy.fill(0);
         fy.set(e);
         gx.set(h);
       } else if (family === 'TM') {
+        fy.fill(0);
+        gx.fill(0);
         fx.set(e);
         gy.set(h);
       } else {
@@ -219,8 +243,6 @@ export function nearField(
         gy.set(h.subarray(2 * N));
       }
       // Hz = Kx·Ey − ky·Ex; Dz = ky·Hx − Kx·Hy
-      const gz = new Float64Array(2 * N);
-      const dz = new Float64Array(2 * N);
       for (let m = 0; m < N; m++) {
         for (let t = 0; t < 2; t++) {
           gz[2 * m + t] = kx[m]! * fy[2 * m + t]! - ky * fx[2 * m + t]!;
@@ -234,10 +256,12 @@ export function nearField(
       synthesizeAdd(Hy, row, gy, basis, N, nx);
       synthesizeAdd(Hz, row, gz, basis, N, nx);
       // Ez = Dz/ε(x) point by point
-      const dzx = new Float64Array(2 * nx);
+      dzx.fill(0);
       synthesizeAdd(dzx, 0, dz, basis, N, nx);
+      const epsX = epsRow(region);
       for (let i = 0; i < nx; i++) {
-        const [er, ei] = epsAt(structure, region, xUm[i]!);
+        const er = epsX[2 * i]!;
+        const ei = epsX[2 * i + 1]!;
         const d = er * er + ei * ei;
         const vr = dzx[2 * i]!;
         const vi = dzx[2 * i + 1]!;
@@ -283,26 +307,6 @@ function setPhased(out: Float64Array, src: Float64Array, q: Float64Array, d: num
     out[k] = sr * x[k]! - si * x[k + 1]!;
     out[k + 1] = sr * x[k + 1]! + si * x[k]!;
   }
-}
-
-function matVec(m: CMatrix, v: Float64Array): Float64Array {
-  const n = m.rows;
-  const o = new Float64Array(2 * n);
-  const d = m.data;
-  for (let i = 0; i < n; i++) {
-    let sr = 0;
-    let si = 0;
-    const r = 2 * i * m.cols;
-    for (let j = 0; j < m.cols; j++) {
-      const ar = d[r + 2 * j]!;
-      const ai = d[r + 2 * j + 1]!;
-      sr += ar * v[2 * j]! - ai * v[2 * j + 1]!;
-      si += ar * v[2 * j + 1]! + ai * v[2 * j]!;
-    }
-    o[2 * i] = sr;
-    o[2 * i + 1] = si;
-  }
-  return o;
 }
 
 /** out[row + i] += Σ_m f_m·basis(m, i) */
