@@ -5,20 +5,10 @@
  */
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { designToProblem, type Problem } from '../design/index.ts';
 import example from '../design/examples/blazed-aluminium-spectrometer.json' with { type: 'json' };
 import { sweepCommand } from './sweep-command.ts';
 
 export const DEMO_DESIGN_PATH = fileURLToPath(new URL('../design/examples/blazed-aluminium-spectrometer.json', import.meta.url));
-
-export function demoDesign(): Problem {
-  return designToProblem(example);
-}
-
-/** The demo design as its raw JSON object. */
-export function demoDesignRaw(): unknown {
-  return example;
-}
 
 /** Parse the sweep's CSV (numbers, '' for absent cells) by column name. */
 export function readCsvColumns(text: string): Map<string, Array<number | null>> {
