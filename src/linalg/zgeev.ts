@@ -23,6 +23,7 @@ import { LinalgError } from './errors.ts';
 import { zgebak, zgebal } from './zgebal.ts';
 import { zgehrd, zgehrdWorkLength, zunghr, zunghrWorkLength } from './zgehrd.ts';
 import { QrScratch, qrIterationCap, zhseqr } from './zhseqr.ts';
+import { WorkspaceStore } from './workspaces.ts';
 import { ztrevc } from './ztrevc.ts';
 
 /** Entries are scaled into [SMLNUM, BIGNUM] first: √(smallest normal)/ε and its reciprocal. */
@@ -100,6 +101,9 @@ export class ZgeevWorkspace {
   }
 }
 
+/** Workspaces used when a call passes none. */
+const zgeevSpaces = new WorkspaceStore((n) => new ZgeevWorkspace(n));
+
 /**
  * Eigen-decomposition A·V = V·Λ of a general complex n×n matrix.
  *
@@ -111,7 +115,8 @@ export class ZgeevWorkspace {
  *
  * @param a square matrix, interleaved row-major (see {@link CMatrix})
  * @param options `vectors` (default true), `balance` (default true)
- * @param workspace scratch for this n, reused across calls; created when omitted
+ * @param workspace scratch for this n; when omitted, the thread's kept workspace for this n
+ *   (see workspaces.ts)
  * @returns n, eigenvalues (length 2n, interleaved), eigenvectors (n×n) or null
  * @throws {LinalgError} code 'shape' when `a` is not square or the workspace is for another n;
  *   'non-finite' when `a` has a NaN or infinite entry (or the result would overflow);
@@ -135,7 +140,7 @@ export function zgeev(a: Readonly<CMatrix>, options: ZgeevOptions = {}, workspac
   }
   const wantv = options.vectors ?? true;
   const balance = options.balance ?? true;
-  const ws = workspace ?? new ZgeevWorkspace(n);
+  const ws = workspace ?? zgeevSpaces.get(n);
   if (ws.n !== n) {
     throw new LinalgError('zgeev', 'shape', n, `workspace is for n = ${ws.n}`);
   }

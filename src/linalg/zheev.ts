@@ -17,6 +17,7 @@ import { allFinite, cmatrix, type CMatrix } from './cmatrix.ts';
 import { LinalgError } from './errors.ts';
 import { zhetrdBackTransform, zhetrdBase } from './zhetrd.ts';
 import { ZSTEQR_MAXIT, zsteqrBase } from './zsteqr.ts';
+import { WorkspaceStore } from './workspaces.ts';
 
 export interface ZheevResult {
   readonly n: number;
@@ -70,6 +71,9 @@ export class ZheevWorkspace {
 const SCALE_MIN = 2 ** -485; // ≈ 1.0e-146 ≈ √(smallest normal / ε)
 const SCALE_MAX = 2 ** 485; // ≈ 1.0e146
 
+/** Workspaces used when a call passes none. */
+const zheevSpaces = new WorkspaceStore((n) => new ZheevWorkspace(n));
+
 /**
  * Eigen-decomposition of a Hermitian matrix.
  *
@@ -80,7 +84,8 @@ const SCALE_MAX = 2 ** 485; // ≈ 1.0e146
  *
  * @param a n×n Hermitian matrix.
  * @param options `vectors` (default true): also compute the eigenvectors.
- * @param workspace scratch for this n (allocated for the call when absent).
+ * @param workspace scratch for this n; when absent, the thread's kept workspace for this n
+ *   (see workspaces.ts).
  * @returns eigenvalues ascending (length n) and, if requested, the n×n unitary matrix whose column
  *   j is the eigenvector of values[j].
  * @throws {LinalgError} 'shape' if `a` is not square or the workspace is for another n;
@@ -100,7 +105,7 @@ export function zheev(
   if (a.data.length < 2 * n * n) {
     throw new LinalgError('zheev', 'shape', n, `data has ${a.data.length} doubles, need ${2 * n * n}`);
   }
-  const ws = workspace ?? new ZheevWorkspace(n);
+  const ws = workspace ?? zheevSpaces.get(n);
   if (ws.n !== n) throw new LinalgError('zheev', 'shape', n, `workspace is for n = ${ws.n}`);
   if (!allFinite(a.data, 2 * n * n)) {
     throw new LinalgError('zheev', 'non-finite', n, 'matrix has NaN or infinite entries');
