@@ -11,8 +11,9 @@
  * golden-section search around the best samples. A coating over such a profile follows the
  * sampled polyline (chord error ≤ max|h''|·(Λ/4096)²/8).
  */
-import * as math from 'mathjs';
+import type * as MathJs from 'mathjs';
 import { profileFromSurface } from './fromSurface.ts';
+import { mathjs } from './mathjs-access.ts';
 import { mergeIntervals, type Interval } from './segments.ts';
 import type { HeightProfile, ProfileResult, SlicedProfileParams } from './types.ts';
 import { common, fail, num, record } from './validate.ts';
@@ -42,7 +43,8 @@ export function profileFromExpression(p: ExpressionProfileParams): ProfileResult
   const c = common('expression', r);
   const text = r.expression;
   if (typeof text !== 'string' || text.trim() === '') fail('expression.expression', 'an expression in x (mathjs syntax)', text);
-  let node: math.MathNode;
+  const math = mathjs();
+  let node: MathJs.MathNode;
   try {
     node = math.parse(text);
   } catch (e) {
@@ -53,7 +55,7 @@ export function profileFromExpression(p: ExpressionProfileParams): ProfileResult
   node.traverse((n, path) => {
     if (n.type === 'AssignmentNode' || n.type === 'FunctionAssignmentNode' || n.type === 'BlockNode') assigns = true;
     if (n.type === 'SymbolNode' && path !== 'fn') {
-      const name = (n as math.SymbolNode).name;
+      const name = (n as MathJs.SymbolNode).name;
       if (name !== 'x' && typeof (math as unknown as Record<string, unknown>)[name] !== 'number') others.add(name);
     }
   });
@@ -164,7 +166,7 @@ function sampledSurface(L: number, h: (x: number) => number): HeightProfile {
 
 function formatValue(v: unknown): string {
   try {
-    return math.format(v as math.MathType);
+    return mathjs().format(v as MathJs.MathType);
   } catch {
     return String(v);
   }

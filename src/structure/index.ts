@@ -22,3 +22,4 @@ export { compose, type ComposeParts, type LayerSource } from './compose.ts';
 export { crossSection, type CrossSection, type CrossSectionPolygon } from './crossSection.ts';
 export { profileOutline, type Outline } from './outline.ts';
 export { polylineSurface } from './polyline.ts';
+export { mathjs, provideMathjs, mathjsLoaded, type MathModule } from './mathjs-access.ts';

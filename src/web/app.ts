@@ -4,6 +4,7 @@
  * the efficiencies, exports (CSV as the CLI writes it, plot images, the design file) and the
  * design carried in the page address.
  */
+import './mathjs.ts';
 import { planSweep } from '../sweep/index.ts';
 import type { SweepPlan, SweepRow } from '../sweep/types.ts';
 import { InputError } from '../design/index.ts';

@@ -3,6 +3,7 @@
  * functions the CLI's worker threads use (`createEvalContext`, `evaluatePoint`), and hands the
  * rows back through comlink.
  */
+import './mathjs.ts';
 import { expose } from 'comlink';
 import { createEvalContext, evaluatePoint, type EvalContext } from '../sweep/index.ts';
 import type { SweepPlan, SweepRow } from '../sweep/types.ts';
