@@ -10,6 +10,17 @@
  */
 import type { Modes } from './modes.ts';
 
+/** Modes a cache has handed out more than once (see {@link isShared}). */
+const shared = new WeakSet<Modes>();
+
+/**
+ * True when a mode cache has returned these modes more than once: work derived from them alone
+ * (such as interface matrices between two shared media) may be kept, as it can be asked for again.
+ */
+export function isShared(m: Modes): boolean {
+  return shared.has(m);
+}
+
 export class ModeCache {
   readonly #map = new Map<string, Modes>();
   /** lookups answered from the cache */
@@ -24,6 +35,7 @@ export class ModeCache {
     const m = this.#map.get(key);
     if (m) {
       this.hits++;
+      shared.add(m);
       // refresh recency: Map keeps insertion order
       this.#map.delete(key);
       this.#map.set(key, m);

@@ -17,7 +17,7 @@ import { SolverError } from './errors.ts';
 import { indexFromPermittivity, permittivityOf } from './fourier.ts';
 import type { Modes } from './modes.ts';
 import { familyMedia, jonesOf, setupProblem } from './solve.ts';
-import { phase, solveStack } from './stack.ts';
+import { MediumFailure, phase, solveStack } from './stack.ts';
 import type { Complex, Incidence, Jones, Profile, SolveOptions, Structure } from './types.ts';
 
 export interface FieldGrid {
@@ -156,7 +156,12 @@ export function nearField(
   };
   for (const family of setup.families) {
     const { media, thickness, inc } = familyMedia(setup, structure, incidence, family, store);
-    const res = solveStack(media, thickness, inc, true);
+    let res;
+    try {
+      res = solveStack(media, thickness, inc, true);
+    } catch (e) {
+      throw e instanceof MediumFailure ? e.cause : e;
+    }
     const n = media[0]!.n;
     // combine the incident columns with the Jones weights (classical: one family per column)
     const weights: Array<[number, number]> =

@@ -43,6 +43,11 @@ import {
 import { zgeev } from '../linalg/zgeev.ts';
 import { zheev } from '../linalg/zheev.ts';
 import { indexFromPermittivity } from './fourier.ts';
+import { isShared } from './cache.ts';
+import { LU_INVERSE, LU_MODES_V, LU_MODES_W, scratchLU, scratchMatrix } from './scratch.ts';
+
+/** Scratch slots of modulatedModes' N×N temporaries (see scratch.ts). */
+const S_E = 0, S_D = 1, S_EP = 2, S_A = 3, S_B = 4, S_OMEGA = 5, S_BW = 6, S_BL = 7, S_H = 8, S_LH = 9, S_KXWH = 10, S_DKW = 11, S_L = 12;
 
 /** Tangential-field matrices of one medium, with the operations the recursion needs. */
 export interface Modes {
@@ -335,10 +340,17 @@ function applyBlocks(out: CMatrix, b: Float64Array, N: number, m: Readonly<CMatr
 // Modulated layers: dense eigenmodes
 // ---------------------------------------------------------------------------------------------
 
-/** Dense W, V with their LU factors. */
+/** Which matrix a scratch factor slot holds the LU factors of now. */
+const factoredInto = new WeakMap<LUFactors, CMatrix>();
+
+/**
+ * Dense W, V and their LU factors. The factors are formed when first needed: kept with the modes
+ * once a mode cache shares them (they will be used again), otherwise in scratch, where W's
+ * factors also serve the solveV of the same interface when V = −W·diag(q).
+ */
 class DenseModes implements Modes {
-  private readonly luW: LUFactors;
-  private readonly luV: LUFactors | null;
+  private luW: LUFactors | null = null;
+  private luV: LUFactors | null = null;
   /** −1/q per mode, when V = −W·diag(q) */
   private readonly negInvQ: Float64Array | null;
   constructor(
@@ -348,10 +360,26 @@ class DenseModes implements Modes {
     readonly V: CMatrix,
     vIsMinusWq: boolean,
   ) {
-    this.luW = zgetrf(W);
     // V = −W·diag(q) (classical TE) needs no factorization of its own: V⁻¹ = −diag(1/q)·W⁻¹
-    this.luV = vIsMinusWq ? null : zgetrf(V);
     this.negInvQ = vIsMinusWq ? negated(invertDiag(q)) : null;
+  }
+  private factors(which: 'W' | 'V'): LUFactors {
+    const kept = which === 'W' ? this.luW : this.luV;
+    if (kept) return kept;
+    const m = which === 'W' ? this.W : this.V;
+    if (isShared(this)) {
+      const f = zgetrf(m);
+      if (which === 'W') this.luW = f;
+      else this.luV = f;
+      return f;
+    }
+    const f = scratchLU(this.n, which === 'W' ? LU_MODES_W : LU_MODES_V);
+    if (factoredInto.get(f) !== m) {
+      factoredInto.delete(f); // not valid while being overwritten (a singular W throws midway)
+      zgetrf(m, f);
+      factoredInto.set(f, m);
+    }
+    return f;
   }
   mulW(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
     return zgemm(out, this.W, m);
@@ -368,12 +396,12 @@ class DenseModes implements Modes {
     return zgemm(out, this.V, m);
   }
   solveW(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
-    return zgetrs(this.luW, m, out) as CMatrix;
+    return zgetrs(this.factors('W'), m, out) as CMatrix;
   }
   solveV(out: CMatrix, m: Readonly<CMatrix>): CMatrix {
-    if (this.luV) return zgetrs(this.luV, m, out) as CMatrix;
-    zgetrs(this.luW, m, out);
-    return zdiagLeft(out, this.negInvQ!, out);
+    if (!this.negInvQ) return zgetrs(this.factors('V'), m, out) as CMatrix;
+    zgetrs(this.factors('W'), m, out);
+    return zdiagLeft(out, this.negInvQ, out);
   }
 }
 
@@ -400,17 +428,17 @@ export interface ModulatedLayerInput {
 export function modulatedModes(inp: ModulatedLayerInput): Modes {
   const { kx, ky, family } = inp;
   const N = kx.length;
-  const E = toeplitz(inp.epsCoeffs, N) as CMatrix;
+  const E = toeplitz(inp.epsCoeffs, N, scratchMatrix(N, S_E));
   if (family === 'TE') {
     const { w, q } = eigenE(E, kx, ky, inp);
     // V = −W·diag(q)
     const V = zdiagRight(cmatrix(N, N), w, negated(q));
     return new DenseModes(N, q, w, V, true);
   }
-  const D = zgetri(E) as CMatrix; // E⁻¹
-  const Ep = inp.factorization === 'inverse' ? (zgetri(toeplitz(inp.invEpsCoeffs, N)) as CMatrix) : E;
+  const D = zgetri(E, scratchMatrix(N, S_D), scratchLU(N, LU_INVERSE)); // E⁻¹
+  const Ep = inp.factorization === 'inverse' ? zgetri(toeplitz(inp.invEpsCoeffs, N, scratchMatrix(N, S_A)), scratchMatrix(N, S_EP), scratchLU(N, LU_INVERSE)) : E;
   // B = I − Kx·D·Kx
-  const B = cmatrix(N, N);
+  const B = scratchMatrix(N, S_B);
   for (let i = 0; i < N; i++) {
     for (let j = 0; j < N; j++) {
       const p = 2 * (i * N + j);
@@ -422,7 +450,7 @@ export function modulatedModes(inp: ModulatedLayerInput): Modes {
   const { w: WH, q: qH } = eigenH(Ep, B, ky, inp);
   // X = B·W_H·diag(1/q_H)
   const qInv = invertDiag(qH);
-  const BW = zgemm(cmatrix(N, N), B, WH);
+  const BW = zgemm(scratchMatrix(N, S_BW), B, WH);
   if (family === 'TM') {
     return new DenseModes(N, qH, zdiagRight(cmatrix(N, N), BW, qInv), WH, false);
   }
@@ -435,7 +463,7 @@ export function modulatedModes(inp: ModulatedLayerInput): Modes {
   qAll.set(qE, 0);
   qAll.set(qH, 2 * N);
   // Y = −ky·D·Kx·W_H·diag(1/q_H)
-  const KxWH = cmatrix(N, N);
+  const KxWH = scratchMatrix(N, S_KXWH);
   for (let i = 0; i < N; i++) {
     for (let j = 0; j < N; j++) {
       const p = 2 * (i * N + j);
@@ -443,7 +471,7 @@ export function modulatedModes(inp: ModulatedLayerInput): Modes {
       KxWH.data[p + 1] = kx[i]! * WH.data[p + 1]!;
     }
   }
-  const DKW = zgemm(cmatrix(N, N), D, KxWH);
+  const DKW = zgemm(scratchMatrix(N, S_DKW), D, KxWH);
   for (let i = 0; i < N; i++) {
     for (let j = 0; j < N; j++) {
       const src = 2 * (i * N + j);
@@ -505,7 +533,7 @@ export function modulatedModes(inp: ModulatedLayerInput): Modes {
 /** E-type modes: eigen of Ω_E = E − Kx² − ky². */
 function eigenE(E: CMatrix, kx: Float64Array, ky: number, inp: ModulatedLayerInput): { w: CMatrix; q: Float64Array } {
   const N = kx.length;
-  const omega = cmatrix(N, N);
+  const omega = scratchMatrix(N, S_OMEGA);
   omega.data.set(E.data);
   for (let i = 0; i < N; i++) omega.data[2 * (i * N + i)] -= kx[i]! * kx[i]! + ky * ky;
   const q = new Float64Array(2 * N);
@@ -529,14 +557,14 @@ function eigenH(Ep: CMatrix, B: CMatrix, ky: number, inp: ModulatedLayerInput): 
     // eigenvalues of Ep·B, and W_H = L·Y maps its eigenvectors back.
     let L: CMatrix | null = null;
     try {
-      L = zpotrf(Ep);
+      L = zpotrf(Ep, scratchMatrix(N, S_L));
     } catch (e) {
       if (!(e instanceof LinalgError && e.code === 'singular')) throw e;
     }
     if (L) {
-      const BL = zgemm(cmatrix(N, N), B, L);
-      const LH = conjTranspose(L);
-      const H = zgemm(cmatrix(N, N), LH, BL);
+      const BL = zgemm(scratchMatrix(N, S_BL), B, L);
+      const LH = conjTranspose(L, scratchMatrix(N, S_LH));
+      const H = zgemm(scratchMatrix(N, S_H), LH, BL);
       // enforce exact Hermitian symmetry lost to round-off in the two products
       symmetrize(H);
       const r = zheev(H);
@@ -545,7 +573,7 @@ function eigenH(Ep: CMatrix, B: CMatrix, ky: number, inp: ModulatedLayerInput): 
       return { w, q };
     }
   }
-  const omega = zgemm(cmatrix(N, N), Ep, B);
+  const omega = zgemm(scratchMatrix(N, S_OMEGA), Ep, B);
   for (let i = 0; i < N; i++) omega.data[2 * (i * N + i)] -= ky * ky;
   const r = zgeev(omega);
   for (let k = 0; k < N; k++) propagationConstant(r.values[2 * k]!, r.values[2 * k + 1]!, q, k);

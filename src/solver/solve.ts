@@ -14,7 +14,7 @@ import { SolverError } from './errors.ts';
 import { directionAngles } from './grating-equation.ts';
 import { indexFromPermittivity, isLossless, permittivityOf, profileCoefficients } from './fourier.ts';
 import { type Family, homogeneousModes, type Modes, modulatedModes } from './modes.ts';
-import { solveStack } from './stack.ts';
+import { MediumFailure, solveStack } from './stack.ts';
 import { ModeCache } from './cache.ts';
 import type { Complex, Incidence, Jones, OrderResult, Profile, Response, SolveOptions, SolveResult, Structure } from './types.ts';
 import { validateProblem } from './validate.ts';
@@ -59,6 +59,7 @@ export function solve(structure: Structure, incidence: Incidence, options: Solve
     try {
       res = solveStack(media, thickness, inc);
     } catch (e) {
+      if (e instanceof MediumFailure) throw numerical(e.cause, e.medium - 1, incidence, family);
       throw numerical(e, -1, incidence, family);
     }
     const cover = media[0]!;

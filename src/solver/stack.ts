@@ -15,7 +15,12 @@
  * at the bottom of medium j is Δ·S⁻¹ and at its top X·Δ·S⁻¹·X.
  */
 import { cmatrix, type CMatrix, type LUFactors, zdiagLeft, zgetrf, zgetrs, zgetrsT, zgemm } from '../linalg/index.ts';
+import { isShared } from './cache.ts';
 import type { Modes } from './modes.ts';
+import { LU_STACK, scratchLU, scratchMatrix } from './scratch.ts';
+
+/** Scratch slots of solveStack (see scratch.ts); the interface matrices of unshared modes use two more. */
+const S_F = 0, S_G = 1, S_TMP = 2, S_TMP2 = 3, S_T = 4, S_U = 5;
 
 export interface StackResult {
   /** backward amplitudes in the cover at z = 0, one column per incident vector */
@@ -44,16 +49,21 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
   let delta0: CMatrix | null = null;
   // R' at the top of the medium below the current interface; null means zero (substrate)
   let rTop: CMatrix | null = null;
-  const F = cmatrix(n, n);
-  const G = cmatrix(n, n);
-  const tmp = cmatrix(n, n);
-  const tmp2 = cmatrix(n, n);
+  const F = scratchMatrix(n, S_F);
+  const G = scratchMatrix(n, S_G);
+  const tmp = scratchMatrix(n, S_TMP);
+  const tmp2 = scratchMatrix(n, S_TMP2);
   for (let j = L; j >= 0; j--) {
     const upper = media[j]!;
     const lower = media[j + 1]!;
     // interface matrices T = W_j⁻¹·W_{j+1}, U = V_j⁻¹·V_{j+1}: they depend on the two media only,
     // so a thickness sweep with cached modes computes them once
-    const { T, U } = interfaceMatrices(upper, lower);
+    let T: CMatrix, U: CMatrix;
+    try {
+      ({ T, U } = interfaceMatrices(upper, lower));
+    } catch (e) {
+      throw new MediumFailure(j, e); // factoring a medium's W or V: the failure belongs to that medium
+    }
     if (rTop === null) {
       F.data.set(T.data); // A = T
       G.data.set(U.data); // B = U
@@ -90,7 +100,7 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
         }
       }
     }
-    lus[j] = zgetrf(tmp);
+    lus[j] = zgetrf(tmp, scratchLU(n, LU_STACK + j));
     if (last) {
       delta0 = F;
       break;
@@ -119,10 +129,26 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
   return keepInterior ? { reflected, transmitted: cur, interior } : { reflected, transmitted: cur };
 }
 
+/** A failure while factoring the modes of medium `medium` (0 = cover, 1 … L = layers). */
+export class MediumFailure extends Error {
+  constructor(
+    readonly medium: number,
+    override readonly cause: unknown,
+  ) {
+    super(cause instanceof Error ? cause.message : String(cause));
+  }
+}
+
 const interfaces = new WeakMap<Modes, WeakMap<Modes, { T: CMatrix; U: CMatrix }>>();
 
-/** T = W_upper⁻¹·W_lower and U = V_upper⁻¹·V_lower, remembered per pair of mode objects. */
+/**
+ * T = W_upper⁻¹·W_lower and U = V_upper⁻¹·V_lower. Remembered per pair of mode objects when both
+ * are shared (handed out more than once by a mode cache: repeated layers, or a depth sweep from
+ * its second point on), since only then can the pair come back; otherwise computed into scratch.
+ */
 function interfaceMatrices(upper: Modes, lower: Modes): { T: CMatrix; U: CMatrix } {
+  const n = upper.n;
+  if (!(isShared(upper) && isShared(lower))) return interfaceInto(upper, lower, scratchMatrix(n, S_T), scratchMatrix(n, S_U));
   let row = interfaces.get(upper);
   if (!row) {
     row = new WeakMap();
@@ -130,15 +156,18 @@ function interfaceMatrices(upper: Modes, lower: Modes): { T: CMatrix; U: CMatrix
   }
   let e = row.get(lower);
   if (!e) {
-    const n = upper.n;
-    const T = lower.denseW(cmatrix(n, n));
-    upper.solveW(T, T);
-    const U = lower.denseV(cmatrix(n, n));
-    upper.solveV(U, U);
-    e = { T, U };
+    e = interfaceInto(upper, lower, cmatrix(n, n), cmatrix(n, n));
     row.set(lower, e);
   }
   return e;
+}
+
+function interfaceInto(upper: Modes, lower: Modes, T: CMatrix, U: CMatrix): { T: CMatrix; U: CMatrix } {
+  lower.denseW(T);
+  upper.solveW(T, T);
+  lower.denseV(U);
+  upper.solveV(U, U);
+  return { T, U };
 }
 
 function transposeInto(out: CMatrix, a: Readonly<CMatrix>): void {
