@@ -9,12 +9,15 @@ import type { HeightProfile, ProfileResult, ProfileShape, SliceStrategy } from '
 
 /** The cross-section of a ridge of `ridge` under `surface`, in `groove`. */
 export function surfaceShape(surface: HeightProfile, ridge: string, groove: string): ProfileShape {
-  return {
+  const shape: ProfileShape = {
     periodUm: surface.periodUm,
     heightUm: surface.maxUm,
     breaksUm: surface.levelsUm,
     materialsAt: (z) => segmentsFromRegions([{ set: surface.above(z), material: ridge }], groove),
   };
+  // two different materials: the fill measures the change with height (see ProfileShape.fillAt)
+  if (surface.fillAbove && ridge !== groove) return { ...shape, fillAt: (z) => surface.fillAbove!(z) };
+  return shape;
 }
 
 /** Slice a surface profile into a {@link ProfileResult}. */

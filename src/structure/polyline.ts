@@ -54,6 +54,20 @@ export function polylineSurface(periodUm: number, points: ReadonlyArray<readonly
       }
       return mergeIntervals(out.map(([a, b]) => [a / periodUm, b / periodUm]));
     },
+    fillAbove(z: number): number {
+      let w = 0;
+      for (let i = 0; i + 1 < verts.length; i++) {
+        const [x1, h1] = verts[i]!;
+        const [x2, h2] = verts[i + 1]!;
+        if (!(x2 > x1)) continue;
+        const up1 = h1 > z;
+        const up2 = h2 > z;
+        if (up1 && up2) w += x2 - x1;
+        else if (up1) w += ((h1 - z) / (h1 - h2)) * (x2 - x1);
+        else if (up2) w += ((h2 - z) / (h2 - h1)) * (x2 - x1);
+      }
+      return w / periodUm;
+    },
     heightAt(x: number): number {
       const xu = (x - Math.floor(x)) * periodUm;
       // last vertex with xs[i] ≤ xu

@@ -6,7 +6,7 @@
  * material interfaces), so no slice straddles a jump of the fill. On each piece the "change"
  * C(z) is the cumulative fraction of the period whose material differs between neighbouring
  * heights, measured on 128 equal steps; for a single-valued surface this is the cumulative
- * |d(fill)/dz|. A piece over which nothing changes (a flat level, a uniform film) gets exactly one
+ * |d(fill)/dz|, measured from the fill itself when the shape gives it (`fillAt`). A piece over which nothing changes (a flat level, a uniform film) gets exactly one
  * slice. The remaining slices are shared out by weight, each piece getting at least one:
  * - 'uniform': weight = height, and equal heights within a piece;
  * - 'adaptive': weight density w(z) = α/H + (1 − α)·c(z)/C_total with α = 0.25 and H the total
@@ -58,12 +58,19 @@ export function sliceShape(shape: ProfileShape, slices: number, strategy: SliceS
     const nodes: number[] = [];
     const cum: number[] = [];
     let prev: NamedSegment[] | undefined;
+    let prevFill = 0;
     let total = 0;
     for (let k = 0; k <= STEPS; k++) {
       const z = a + d + ((b - a - 2 * d) * k) / STEPS;
-      const segs = shape.materialsAt(z);
-      if (prev) total += segmentsDiffer(prev, segs);
-      prev = segs;
+      if (shape.fillAt) {
+        const f = shape.fillAt(z);
+        if (k > 0) total += Math.abs(prevFill - f);
+        prevFill = f;
+      } else {
+        const segs = shape.materialsAt(z);
+        if (prev) total += segmentsDiffer(prev, segs);
+        prev = segs;
+      }
       nodes.push(z);
       cum.push(total);
     }

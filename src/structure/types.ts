@@ -73,6 +73,11 @@ export interface HeightProfile {
    * root-found for expressions (see `profileFromExpression`).
    */
   above(zUm: number): Array<[number, number]>;
+  /**
+   * The fraction of the period where h(x) > zUm (the total width of `above(zUm)`), without
+   * building the intervals; optional (slicing measures with it when present).
+   */
+  fillAbove?(zUm: number): number;
   /** h(x) in µm at x given as a fraction of the period. */
   heightAt(x: number): number;
   /**
@@ -95,6 +100,13 @@ export interface ProfileShape {
   readonly breaksUm: ReadonlyArray<number>;
   /** materials across one period at height `zUm` (0 < zUm < heightUm), tiling [0, 1) in order */
   materialsAt(zUm: number): NamedSegment[];
+  /**
+   * Optional, for one material under a single-valued surface in another: the fraction of the
+   * period the ridge fills at `zUm`. The ridge at a greater height lies within the ridge at a
+   * lower one, so the fraction of the period whose material differs between two heights is the
+   * difference of the fills — what slicing measures, here without building segments.
+   */
+  fillAt?(zUm: number): number;
 }
 
 /** What every profile builder returns. */
