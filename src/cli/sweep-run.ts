@@ -122,12 +122,19 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
           minThreads: threads,
           maxThreads: threads,
           idleTimeout: 60_000,
-          concurrentTasksPerWorker: 1,
+          // two batches per thread: the next one waits in the thread, so a thread that finishes does
+          // not sit idle until this thread's evaluation slice ends and hands it more work (first
+          // tries are therefore not abortable in piscina's sense: cancelling terminates the threads)
+          concurrentTasksPerWorker: 2,
           workerData: setup,
         })
       : null;
   const readText = (file: string): string => readFileSync(resolve(o.baseDir, file), 'utf8');
   const cancel = new AbortController();
+  let destroyed: Promise<void> | null = null;
+  /** Terminate the threads (once): their running batches are cancelled. */
+  const destroyPool = (): Promise<void> => (destroyed ??= pool ? pool.destroy().catch(() => {}) : Promise.resolve());
+  cancel.signal.addEventListener('abort', () => void destroyPool());
   const maxInflight = 2 * threads;
   const retry: Work[] = [];
   let cursor = o.first;
@@ -264,13 +271,15 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
     threadFault = reason;
     for (const w of inflight) retry.push(w);
     inflight.clear();
-    void pool!.destroy().catch(() => {});
+    void destroyPool();
     if (!mainRunning) void mainLoop();
   }
 
   function launch(w: Work): void {
     inflight.add(w);
-    pool!.run({ first: w.first, count: w.count }, { signal: cancel.signal }).then(
+    // a retry runs alone on its thread (piscina never puts an abortable task beside another), so
+    // a batch that shared a thread with one that brought the thread down is not blamed twice
+    pool!.run({ first: w.first, count: w.count }, w.attempt > 0 ? { signal: cancel.signal } : {}).then(
       (res) => {
         if (!inflight.delete(w)) return; // given back to the main thread meanwhile
         successes++;
@@ -365,7 +374,7 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   } finally {
     o.stop?.removeEventListener('abort', onStop);
     o.abort?.removeEventListener('abort', onAbort);
-    if (threadFault === null) await pool?.destroy();
+    await destroyPool();
   }
   if (fatal !== null) throw fatal;
   return { delivered, retriedBatches, workerFailedPoints, interrupted: delivered < total, threadFault };
