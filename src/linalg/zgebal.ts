@@ -164,13 +164,12 @@ export function zgebal(
       // must not push any of those entries past the overflow or underflow thresholds.
       let ca = 0;
       for (let q = 0; q <= ihi; q++) {
-        const p = q * rs + 2 * i;
-        const m = modulus(a[p]!, a[p + 1]!);
+        const m = modulusAt(a, q * rs + 2 * i);
         if (m > ca) ca = m;
       }
       let ra = 0;
       for (let k = ilo; k < n; k++) {
-        const m = modulus(a[rb + 2 * k]!, a[rb + 2 * k + 1]!);
+        const m = modulusAt(a, rb + 2 * k);
         if (m > ra) ra = m;
       }
 
@@ -250,10 +249,13 @@ export function zgebak(
   for (let i = ihi + 1; i < n; i++) swapRows(m, v, i, scale[i]!);
 }
 
-/** |x + iy| without overflow or the cost of Math.hypot. */
-function modulus(x: number, y: number): number {
-  const ax = Math.abs(x);
-  const ay = Math.abs(y);
+/**
+ * |a[p] + i·a[p+1]| without overflow or the cost of Math.hypot. Takes the array and index, not
+ * the two numbers: doubles passed to a call the engine does not inline are boxed on the heap.
+ */
+function modulusAt(a: Float64Array, p: number): number {
+  const ax = Math.abs(a[p]!);
+  const ay = Math.abs(a[p + 1]!);
   const big = ax > ay ? ax : ay;
   if (big === 0) return 0;
   const small = ax > ay ? ay : ax;

@@ -89,6 +89,13 @@ export function aedWindow(nh: number): number {
 const OUT = new Float64Array(2);
 /** Rotation from {@link givens}: c, Re s, Im s, Re r, Im r. */
 const ROT = new Float64Array(5);
+/**
+ * Input of {@link givens}: f (re, im), g (re, im). The rotation helpers take their numbers
+ * through these arrays, not as arguments: in the large QR routines the engine does not inline
+ * them, and a double passed to a call that is not inlined is boxed on the heap — some 120 kB of
+ * garbage per eigen-solve at n = 31, which kept the collector busy.
+ */
+const GIN = new Float64Array(4);
 
 /**
  * Working storage of {@link zhseqr} at order n, allocated once per workspace: the n×n matrices
@@ -437,9 +444,17 @@ function qrIterate(
       for (let k = m; k < i; k++) {
         const pk = k * rs + 2 * k;
         if (k === m) {
-          givens(v1r, v1i, v2r, v2i);
+          GIN[0] = v1r;
+          GIN[1] = v1i;
+          GIN[2] = v2r;
+          GIN[3] = v2i;
+          givens();
         } else {
-          givens(h[pk - 2]!, h[pk - 1]!, h[pk + rs - 2]!, h[pk + rs - 1]!);
+          GIN[0] = h[pk - 2]!;
+          GIN[1] = h[pk - 1]!;
+          GIN[2] = h[pk + rs - 2]!;
+          GIN[3] = h[pk + rs - 1]!;
+          givens();
         }
         const c = ROT[0]!;
         const sr = ROT[1]!;
@@ -471,12 +486,12 @@ function qrIterate(
         if (hOff >= 0) {
           kern!.rotPair(hOff + 8 * pk, hOff + 8 * (pk + rs), i2 - k + 1, rotOff + ROT_BYTES * k);
         } else {
-          rotateRowPair(h, pk, pk + rs, k * rs + 2 * i2 + 2, c, sr, si);
+          rotateRowPair(h, pk, pk + rs, k * rs + 2 * i2 + 2);
         }
         // Right, only rows k+1..min(k+2, i), whose columns k, k+1 feed the next rotation:
         // [x y] ← [c·x + s̄·y, −s·x + c·y]. Rows ≤ k are done after the sweep.
         const rEnd = k + 2 < i ? k + 2 : i;
-        for (let r = k + 1; r <= rEnd; r++) rotateColPair(h, r * rs + 2 * k, c, sr, si);
+        for (let r = k + 1; r <= rEnd; r++) rotateColPair(h, r * rs + 2 * k);
       }
 
       // --- Deferred right rotations: row r has had those of sweeps k < r already (rows k+1,
@@ -701,13 +716,14 @@ function swapDiagonal(t: Float64Array, v: Float64Array, m: number, k: number): v
   const t11i = t[pk + 1]!;
   const t22r = t[pl]!;
   const t22i = t[pl + 1]!;
-  givens(t[pk + 2]!, t[pk + 3]!, t22r - t11r, t22i - t11i);
-  const c = ROT[0]!;
-  const sr = ROT[1]!;
-  const si = ROT[2]!;
-  if (k + 2 < m) rotateRowPair(t, pk + 4, pk + ms + 4, k * ms + ms, c, sr, si);
-  for (let r = 1; r < k; r++) rotateColPair(t, r * ms + 2 * k, c, sr, si);
-  for (let r = 1; r < m; r++) rotateColPair(v, r * ms + 2 * k, c, sr, si);
+  GIN[0] = t[pk + 2]!;
+  GIN[1] = t[pk + 3]!;
+  GIN[2] = t22r - t11r;
+  GIN[3] = t22i - t11i;
+  givens();
+  if (k + 2 < m) rotateRowPair(t, pk + 4, pk + ms + 4, k * ms + ms);
+  for (let r = 1; r < k; r++) rotateColPair(t, r * ms + 2 * k);
+  for (let r = 1; r < m; r++) rotateColPair(v, r * ms + 2 * k);
   t[pk] = t22r;
   t[pk + 1] = t22i;
   t[pl] = t11r;
@@ -716,14 +732,18 @@ function swapDiagonal(t: Float64Array, v: Float64Array, m: number, k: number): v
 
 /**
  * Plane rotation G = [c s; −s̄ c] (c real, s complex) with G·[f; g] = [r; 0] and
- * r = (f/|f|)·√(|f|² + |g|²); results in ROT (c, Re s, Im s, Re r, Im r).
+ * r = (f/|f|)·√(|f|² + |g|²); f and g from GIN, results in ROT (c, Re s, Im s, Re r, Im r).
  *
  * |f| and |g| are each computed after scaling by their own largest component, and the phases
  * f/|f|, g/|g| from them, so c² + |s|² = 1 to rounding even when |f|/|g| is far below the square
  * root of the underflow threshold (a single common scale would square such an f into a subnormal
  * and lose the phase, which the property tests caught).
  */
-function givens(fr: number, fi: number, gr: number, gi: number): void {
+function givens(): void {
+  const fr = GIN[0]!;
+  const fi = GIN[1]!;
+  const gr = GIN[2]!;
+  const gi = GIN[3]!;
   const afr = Math.abs(fr);
   const afi = Math.abs(fi);
   const agr = Math.abs(gr);
@@ -766,7 +786,10 @@ function givens(fr: number, fi: number, gr: number, gi: number): void {
 }
 
 /** Left rotation of two rows from positions p and q (q − p = row stride) up to pend (exclusive of p's row). */
-function rotateRowPair(d: Float64Array, p: number, q: number, pend: number, c: number, sr: number, si: number): void {
+function rotateRowPair(d: Float64Array, p: number, q: number, pend: number): void {
+  const c = ROT[0]!;
+  const sr = ROT[1]!;
+  const si = ROT[2]!;
   for (; p < pend; p += 2, q += 2) {
     const xr = d[p]!;
     const xi = d[p + 1]!;
@@ -780,7 +803,10 @@ function rotateRowPair(d: Float64Array, p: number, q: number, pend: number, c: n
 }
 
 /** Right rotation of the adjacent entries at p, p+2: [x y] ← [c·x + s̄·y, −s·x + c·y]. */
-function rotateColPair(d: Float64Array, p: number, c: number, sr: number, si: number): void {
+function rotateColPair(d: Float64Array, p: number): void {
+  const c = ROT[0]!;
+  const sr = ROT[1]!;
+  const si = ROT[2]!;
   const xr = d[p]!;
   const xi = d[p + 1]!;
   const yr = d[p + 2]!;
