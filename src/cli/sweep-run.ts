@@ -40,6 +40,10 @@ export const WORKER_ENTRY = fileURLToPath(new URL('../../workers/sweep-worker.mj
 
 /** A batch aims at this much work on one thread. */
 export const TARGET_BATCH_MS = 150;
+/** The main thread evaluates in slices of about this long, between which it hands out thread work. */
+export const MAIN_SLICE_MS = 50;
+/** Batches handed to one thread at a time. */
+export const QUEUED_PER_THREAD = 3;
 /** … and holds at most this many points. */
 export const MAX_BATCH = 512;
 
@@ -125,7 +129,7 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
           // two batches per thread: the next one waits in the thread, so a thread that finishes does
           // not sit idle until this thread's evaluation slice ends and hands it more work (first
           // tries are therefore not abortable in piscina's sense: cancelling terminates the threads)
-          concurrentTasksPerWorker: 2,
+          concurrentTasksPerWorker: QUEUED_PER_THREAD,
           workerData: setup,
         })
       : null;
@@ -135,7 +139,7 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   /** Terminate the threads (once): their running batches are cancelled. */
   const destroyPool = (): Promise<void> => (destroyed ??= pool ? pool.destroy().catch(() => {}) : Promise.resolve());
   cancel.signal.addEventListener('abort', () => void destroyPool());
-  const maxInflight = 2 * threads;
+  const maxInflight = QUEUED_PER_THREAD * threads;
   const retry: Work[] = [];
   let cursor = o.first;
   /** thread batches handed to the pool and not yet settled */
@@ -336,7 +340,7 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
           for (let i = w.first; i < w.first + w.count; i++) rows.push(evaluateHere(i, mainCtx));
         } else {
           const limit = o.batch ?? MAX_BATCH;
-          while (!stopped && cursor < o.end && rows.length < limit && (rows.length === 0 || o.batch !== undefined || performance.now() - t0 < TARGET_BATCH_MS)) {
+          while (!stopped && cursor < o.end && rows.length < limit && (rows.length === 0 || o.batch !== undefined || performance.now() - t0 < MAIN_SLICE_MS)) {
             rows.push(evaluateHere(cursor++, mainCtx));
           }
         }
