@@ -4,12 +4,14 @@
  * Prints nothing: the caller writes rows and shows progress.
  *
  * - The main thread is one of the workers: it starts evaluating at once, while the threads start
- *   (a thread needs a second or more to load the engine, mostly the unit library), and one
- *   thread fewer is started. It takes points in slices of about TARGET_BATCH_MS, between which its
- *   event loop runs (thread results, signals, output). `--workers 1` starts no thread at all.
+ *   (a thread needs about 0.2–0.3 s to load the engine), and one thread fewer is started. It
+ *   takes points in slices of about MAIN_SLICE_MS, between which its event loop runs (thread
+ *   results, signals, output). `--workers 1` starts no thread at all.
  * - Threads get contiguous batches. The first hold one point each; after that a batch is sized
  *   to take about TARGET_BATCH_MS (so per-task overhead stays far below 1 %), but never so large
- *   that a lane would sit idle at the end of the run.
+ *   that a lane would sit idle at the end of the run. Each thread holds up to QUEUED_PER_THREAD
+ *   batches, so it goes on to the next while its last result waits for the main thread.
+ *   First tries may share a thread's queue; a retry runs alone on its thread.
  * - Each lane keeps one evaluation context for the whole run, so the engine's caches work across
  *   batches; contiguous batches keep neighbouring points, which share most work, on one lane.
  * - Dispatch never runs further ahead of the first unwritten point than `maxAhead` points, so
@@ -19,8 +21,8 @@
  *   'failed' and the reason. On the main thread a point that throws is tried once more with a
  *   fresh context, then reported the same way. The run goes on. If the threads fail six times in
  *   a row, or fail while starting (they cannot load the engine, say; piscina then starts no
- *   more), they are given up and the main thread runs the rest; the summary says why. Until a thread has finished a batch, a point is not blamed for
- *   its thread's failure.
+ *   more), they are given up and the main thread runs the rest; the summary says why.
+ *   Until a thread has finished a batch, a point is not blamed for its thread's failure.
  * - `stop` ends dispatching; running batches finish and are delivered (a thread batch that fails
  *   then is evaluated on the main thread instead, so the rows finished after it can still be
  *   written in order). `abort` also cancels the threads' running batches (their threads are
@@ -323,7 +325,7 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
 
   /**
    * This thread's share: fresh points from the cursor (never the retries of a failed thread
-   * batch, which stay on threads), in slices of about TARGET_BATCH_MS between which the event loop
+   * batch, which stay on threads), in slices of about MAIN_SLICE_MS between which the event loop
    * runs (thread results, signals, output). A point whose evaluation throws (a fault, not the
    * point's own failure, which is a row) is tried once more with a fresh context, then reported
    * failed.
