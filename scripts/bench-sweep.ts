@@ -2,15 +2,14 @@
  * Sweep runner benchmark: points per second on 1 and 2 workers, and what the engine's caches save.
  *
  *   npx tsx scripts/bench-sweep.ts                         # both cases, table + one JSON line per run
- *   npx tsx scripts/bench-sweep.ts --case wavelength --orders 25 --points 400
+ *   npx tsx scripts/bench-sweep.ts --case wavelength --orders 15 --points 400   # a smaller problem
  *   npx tsx scripts/bench-sweep.ts --case depth --depth-points 100 --repeats 3   # fastest of 3
  *
  * Cases:
  *   wavelength  the blazed aluminium spectrometer grating (src/design/examples/
  *               blazed-aluminium-spectrometer.json), λ = 400…700 nm in --points steps (default
- *               400), fixed mount. --orders and --slices replace the design's 25 and 20 (defaults
- *               here: 15 orders, 20 slices, to keep the run short; the design file's values with
- *               --orders 25). Workers 1 and 2.
+ *               400), fixed mount, the design's own 25 orders and 20 slices (--orders and --slices
+ *               replace them). Workers 1 and 2.
  *   depth       a 20-slice sawtooth as RCWA sees it: a 21-level staircase (multilevel, steps
  *               21: 20 slices, the ridge of slice k spanning [k/21, 1) of the period, vertical
  *               back wall), n = 1.5 ridges in air on n = 1.5, Λ = 1 µm, λ = 0.6 µm, θ = 10°,
@@ -22,17 +21,17 @@
  *
  * What is timed: the whole run of `runPoints` as `furrow sweep` uses it (rows produced and
  * dropped, no file), from the call to the last row — so on 2 workers it includes starting the
- * worker thread (it loads the engine: ~1–3 s, mostly the unit library). "first row" is the
- * time to the first row, "steady pt/s" the rate after it. One worker is the calling thread; two
- * are the calling thread and one worker thread. "load" is the 1-minute load average at the end of
- * the run: above the core count, other processes were taking CPU and the figures are low. "cpu s"
- * is the CPU time of the whole process (all its threads) and "cores" that over the wall time:
- * how many cores the run actually got — on a busy machine, fewer than its workers.
+ * worker thread (it loads the engine: about 0.2–0.3 s). "first row" is the time to the first row,
+ * "steady pt/s" the rate after it. One worker is the calling thread; two are the calling thread
+ * and one worker thread. "load" is the 1-minute load average at the end of the run: above the
+ * core count, other processes were taking CPU and the figures are low. "cpu s" is the CPU time of
+ * the whole process (all its threads) and "cores" that over the wall time: how many cores the run
+ * actually got — on a busy machine, fewer than its workers.
  *
- * Reading the figures on a 2-core machine: one worker already keeps about 1.3 cores busy (V8's
- * background threads — garbage collection, compilation — next to the main thread; with node
- * --single-threaded it is 1.0 core and about 20 % slower), so two workers can at best get
- * 2/1.3 ≈ 1.5× more out of the two cores; a short run also pays the worker thread's start-up.
+ * Reading the figures on a 2-core machine: one worker keeps slightly more than one core busy (V8's
+ * background threads collect garbage and compile next to the main thread: about 0.07 of a core
+ * at 25 orders, 0.1 at 15, where each point is cheaper and allocates more per second), so two
+ * workers can at best get 2/1.07 ≈ 1.87× (2/1.1 ≈ 1.8× at 15 orders) out of the two cores.
  *
  * Speed lives here, not in the unit tests: timings depend on the machine and its load.
  */
@@ -56,7 +55,7 @@ interface Args {
 }
 
 function parseArgs(argv: string[]): Args {
-  const a: Args = { cases: ['wavelength', 'depth'], orders: 15, slices: 20, points: 400, depthPoints: 100, repeats: 1, depthOrders: 25 };
+  const a: Args = { cases: ['wavelength', 'depth'], orders: 25, slices: 20, points: 400, depthPoints: 100, repeats: 1, depthOrders: 25 };
   for (let i = 0; i < argv.length; i++) {
     const v = argv[i + 1];
     const num = (): number => {
