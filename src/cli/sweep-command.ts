@@ -39,7 +39,7 @@ import {
   type ShardInfo,
   type SweepFormat,
 } from './sweep-output.ts';
-import { runPoints } from './sweep-run.ts';
+import { runPoints, THREADS_WORTH_MS } from './sweep-run.ts';
 import { chooseShard, shardBlock, shardPath } from './sweep-shard.ts';
 import { specFromFlags, type SpecFlags } from './sweep-spec.ts';
 
@@ -198,6 +198,7 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
   const t0 = performance.now();
   let retriedBatches = 0;
   let threadFault: string | null = null;
+  let lanes = 1;
   try {
     if (next < end) {
       const summary = await runPoints({
@@ -206,6 +207,8 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
         first: next,
         end,
         workers,
+        // by default (no --workers) a run too short to repay starting threads stays on this thread
+        ...(flags.workers === undefined ? { deferThreadsMs: THREADS_WORTH_MS } : {}),
         ...(batch !== undefined ? { batch } : {}),
         onRow: (r) => writer.add(r),
         onProgress: (n) => progress.update(alreadyDone + n, failedBefore + writer.failed),
@@ -216,6 +219,7 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
       });
       retriedBatches = summary.retriedBatches;
       threadFault = summary.threadFault;
+      lanes = summary.lanes;
     }
   } catch (e) {
     const io = e as NodeJS.ErrnoException;
@@ -267,7 +271,7 @@ export async function sweepCommand(designPath: string, flags: SweepFlags, comman
     say(
       writer.written === 0 && alreadyDone > 0
         ? `sweep: ${output} is already complete (${end - first} points${failedText})`
-        : `sweep: ${end - first} points${resumed}${failedText} → ${toStdout ? 'standard output' : output}; ${writer.written} computed in ${seconds.toFixed(1)} s, ${rate.toPrecision(3)} points/s on ${Math.min(workers, Math.max(1, writer.written))} worker${workers === 1 ? '' : 's'}${retried}`,
+        : `sweep: ${end - first} points${resumed}${failedText} → ${toStdout ? 'standard output' : output}; ${writer.written} computed in ${seconds.toFixed(1)} s, ${rate.toPrecision(3)} points/s on ${lanes} worker${lanes === 1 ? '' : 's'}${retried}`,
     );
   }
   return result;
@@ -333,7 +337,7 @@ export function registerSweepCommands(program: Command, out: (s: string) => void
     .option('--pdl', 'also the polarization-dependent loss per order (dB)')
     .option('-o, --output <path>', 'output file, or - for standard output (no run header then); {shard} becomes the shard number', '-')
     .option('--format <csv|jsonl>', 'row format (default: jsonl for a .jsonl/.ndjson output, else csv)')
-    .option('--workers <n>', `points evaluated in parallel: this thread and n − 1 worker threads (default: ${availableParallelism()}, the cores available)`)
+    .option('--workers <n>', `points evaluated in parallel: this thread and n − 1 worker threads (default: ${availableParallelism()}, the cores available, once the run looks longer than ${THREADS_WORTH_MS / 1000} s on one)`)
     .option('--batch <n>', 'points per task (default: sized to about 150 ms of work)')
     .option('--shard <K/N>', 'run only shard K of N (contiguous blocks); auto/N takes K from JOB_COMPLETION_INDEX or SLURM_ARRAY_TASK_ID')
     .option('--shards <n>', 'same as --shard auto/N')

@@ -44,6 +44,8 @@ export const WORKER_ENTRY = fileURLToPath(new URL('../../workers/sweep-worker.mj
 export const TARGET_BATCH_MS = 150;
 /** The main thread evaluates in slices of about this long, between which it hands out thread work. */
 export const MAIN_SLICE_MS = 50;
+/** The CLI's deferThreadsMs when --workers is not given: threads start only for a run longer than this on one lane. */
+export const THREADS_WORTH_MS = 3000;
 /** Batches handed to one thread at a time. */
 export const QUEUED_PER_THREAD = 3;
 /** … and holds at most this many points. */
@@ -60,6 +62,14 @@ export interface PoolRunOptions {
   readonly workers: number;
   /** fixed batch size; default: sized from measured time per point */
   readonly batch?: number;
+  /**
+   * Start the worker threads only once this thread's pace shows that the rest would take longer
+   * than this many ms on it alone (the CLI's default run uses THREADS_WORTH_MS): a thread needs
+   * 0.2–0.3 s to load the engine (about 1 s more when the design needs mathjs) and its first
+   * points run slow while the engine warms up, so it repays itself only on a longer run; a short
+   * run stays on this thread. Without it the threads start at once, as `--workers N` asks.
+   */
+  readonly deferThreadsMs?: number;
   /** the worker threads' entry module (default WORKER_ENTRY) */
   readonly workerEntry?: string;
   /** a fresh evaluation context for every point: no reuse of models or layer modes between points (to measure what the caches save) */
@@ -88,6 +98,8 @@ export interface PoolRunSummary {
   readonly interrupted: boolean;
   /** why the worker threads were given up (six faults in a row), so the main thread ran the rest; else null */
   readonly threadFault: string | null;
+  /** lanes that took part: this thread and the worker threads started (fewer than asked for a short run with deferThreadsMs) */
+  readonly lanes: number;
 }
 
 interface Work extends BatchTask {
@@ -117,24 +129,42 @@ function messageOf(e: unknown): string {
 /** Evaluate points first … end−1: on this thread and workers − 1 worker threads. */
 export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   const total = o.end - o.first;
-  if (total <= 0) return { delivered: 0, retriedBatches: 0, workerFailedPoints: 0, interrupted: false, threadFault: null };
+  if (total <= 0) return { delivered: 0, retriedBatches: 0, workerFailedPoints: 0, interrupted: false, threadFault: null, lanes: 0 };
   const lanes = Math.max(1, Math.min(Math.floor(o.workers), total));
   const threads = lanes - 1;
   const setup: WorkerSetup = { plan: o.plan, baseDir: o.baseDir, freshContextPerPoint: !!o.freshContextPerPoint };
-  const pool =
-    threads > 0
-      ? new Piscina<BatchTask, BatchResult>({
-          filename: o.workerEntry ?? WORKER_ENTRY,
-          minThreads: threads,
-          maxThreads: threads,
-          idleTimeout: 60_000,
-          // two batches per thread: the next one waits in the thread, so a thread that finishes does
-          // not sit idle until this thread's evaluation slice ends and hands it more work (first
-          // tries are therefore not abortable in piscina's sense: cancelling terminates the threads)
-          concurrentTasksPerWorker: QUEUED_PER_THREAD,
-          workerData: setup,
-        })
-      : null;
+  /** the worker threads, once started (at once, or with deferThreadsMs when the work is worth it) */
+  let pool: Piscina<BatchTask, BatchResult> | null = null;
+  let threadsStarted = 0;
+  function startThreads(): void {
+    if (pool !== null || threads === 0 || destroyed !== null) return;
+    pool = new Piscina<BatchTask, BatchResult>({
+      filename: o.workerEntry ?? WORKER_ENTRY,
+      minThreads: threads,
+      maxThreads: threads,
+      idleTimeout: 60_000,
+      // several batches per thread: the next one waits in the thread, so a thread that finishes
+      // does not sit idle until this thread's evaluation slice ends and hands it more work (first
+      // tries are therefore not abortable in piscina's sense: cancelling terminates the threads)
+      concurrentTasksPerWorker: QUEUED_PER_THREAD,
+      workerData: setup,
+    });
+    threadsStarted = threads;
+    // a thread that fails outside a task (while starting) is reported here, not through a task;
+    // piscina starts no new thread after a start-up failure, so the threads are done for
+    pool.on('error', (e: unknown) => giveUpThreads(messageOf(e)));
+  }
+  /**
+   * With deferThreadsMs: true once this thread's pace says the rest would take longer than that
+   * on it alone, judged from the third slice on (the first ones run while the engine warms up,
+   * several times slower than the rest) — or at once when the first point alone took longer.
+   */
+  const worthThreads = (): boolean => {
+    const worth = o.deferThreadsMs;
+    if (worth === undefined) return true;
+    if (steadyMs !== null) return (o.end - cursor) * steadyMs > worth;
+    return firstSliceMs !== null && firstSliceMs > worth;
+  };
   const readText = (file: string): string => readFileSync(resolve(o.baseDir, file), 'utf8');
   const cancel = new AbortController();
   let destroyed: Promise<void> | null = null;
@@ -157,6 +187,10 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   let threadFault: string | null = null;
   let mainRunning = false;
   let msPerPoint: number | null = null;
+  /** this thread's first slice (ms), and its pace after that (ms per point, latest slice) */
+  let firstSliceMs: number | null = null;
+  let steadyMs: number | null = null;
+  let slicesAfterFirst = 0;
   let stopped = false;
   let fatal: unknown = null;
   let finish!: () => void;
@@ -315,6 +349,7 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   }
 
   function pump(): void {
+    if (pool === null && threads > 0 && threadFault === null && !stopped && cursor < o.end && worthThreads()) startThreads();
     while (pool && threadFault === null && !stopped && inflight.size < maxInflight) {
       const w = nextWork();
       if (w === null) break;
@@ -346,8 +381,12 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
             rows.push(evaluateHere(cursor++, mainCtx));
           }
         }
-        measured(performance.now() - t0, rows.length);
+        const ms = performance.now() - t0;
+        measured(ms, rows.length);
+        if (firstSliceMs === null) firstSliceMs = ms;
+        else if (++slicesAfterFirst >= 2) steadyMs = ms / Math.max(1, rows.length);
         deliver(rows);
+        pump(); // hand out thread work (and start the threads, once they are worth it)
         await new Promise<void>((r) => setImmediate(r));
       }
     } catch (e) {
@@ -370,9 +409,6 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
     pump();
   }
 
-  // a thread that fails outside a task (while starting) is reported here, not through a task;
-  // piscina starts no new thread after a start-up failure, so the threads are done for
-  pool?.on('error', (e: unknown) => giveUpThreads(messageOf(e)));
   try {
     pump(); // the threads' first batches go out before this thread takes any points
     void mainLoop();
@@ -383,5 +419,5 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
     await destroyPool();
   }
   if (fatal !== null) throw fatal;
-  return { delivered, retriedBatches, workerFailedPoints, interrupted: delivered < total, threadFault };
+  return { delivered, retriedBatches, workerFailedPoints, interrupted: delivered < total, threadFault, lanes: 1 + threadsStarted };
 }

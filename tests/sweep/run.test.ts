@@ -200,3 +200,25 @@ describe('ordered writing and reading back', () => {
     expect(() => packRows(4, 5, rows, 0)).toThrow(RangeError);
   });
 });
+
+describe('threads only when they repay their start', () => {
+  const plan = planSweep(design, specFromFlags(design, { param: ['incidence.wavelength=400nm:800nm:600'] }));
+  const collect = async (opts: { deferThreadsMs?: number }): Promise<{ lanes: number; rows: SweepRow[] }> => {
+    const rows: SweepRow[] = [];
+    const r = await runPoints({ plan, baseDir: dir, first: 0, end: plan.count, workers: 2, ...opts, onRow: (row) => rows.push(row) });
+    rows.sort((a, b) => a.index - b.index);
+    return { lanes: r.lanes, rows };
+  };
+
+  it('a run shorter than the threshold stays on this thread; a longer one (threshold 0 ms) starts the thread after the warm-up slices; the rows are the same', async () => {
+    const short = await collect({ deferThreadsMs: 60_000 }); // 600 small points: far below a minute
+    const eager = await collect({ deferThreadsMs: 0 });
+    const asked = await collect({});
+    expect(short.lanes).toBe(1);
+    expect(eager.lanes).toBe(2);
+    expect(asked.lanes).toBe(2);
+    expect(eager.rows).toEqual(short.rows);
+    expect(asked.rows).toEqual(short.rows);
+    expect(short.rows.map((r) => r.index)).toEqual([...Array(plan.count).keys()]);
+  });
+});
