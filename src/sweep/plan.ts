@@ -1,7 +1,7 @@
 /**
  * Planning a sweep: validate the sweep section against the design once, resolve ranges and
- * units into axes, the mount and the outputs into columns, and 'all' orders from the first
- * point. Then `designAt` gives any point's design file.
+ * units into axes, the mount and the outputs into columns, and 'all' orders from the sweep's corner
+ * points. Then `designAt` gives any point's design file.
  */
 import { type DesignModel, designToModel, InputError, parseIndexLiteral, problemAt, type ReadText } from '../design/index.ts';
 import { MaterialError } from '../materials/index.ts';
@@ -40,8 +40,9 @@ function isRecord(v: unknown): v is Record<string, unknown> {
  * is reported here, naming the parameter. What can only fail at some points (a material out of
  * range, a mount without solution) is left to those points.
  *
- * `outputs.orders: 'all'` becomes the orders that propagate at the first point in the cover
- * (R) or the substrate (T), within the design's retained orders.
+ * `outputs.orders: 'all'` becomes the orders that propagate in the cover (R) or the substrate
+ * (T) at any corner of the sweep (each parameter's ends, and each value of a short list), within
+ * the design's retained orders.
  *
  * @param design the design file's object (a "sweep" section in it is ignored: pass it as `spec`)
  * @param spec the sweep section, or what the CLI flags built
@@ -153,12 +154,23 @@ export function planSweep(design: unknown, spec: SweepSpec, readText?: ReadText)
   let orders: number[];
   const sweepsOrders = fields.some((f) => f.quantity === 'orders');
   if (outputs.orders === 'all') {
-    try {
-      orders = propagatingAtFirst(plan0, raw0, model0, outputs.sides);
-    } catch (e) {
-      if (!isPointError(e)) throw e;
-      throw new InputError('sweep.outputs.orders', `'all' takes the orders that propagate at the first point, which cannot be evaluated (${e.message}); list the orders instead, e.g. "orders": [-1, 0, 1]`);
+    const found = new Set<number>();
+    let failure: Error | null = null;
+    let evaluated = 0;
+    for (const index of cornerIndices(plan0, s.parameters)) {
+      const raw = index === 0 ? raw0 : rawPointDesign(plan0, pointAt(plan0, index).values);
+      try {
+        for (const m of propagatingAt(plan0, raw, index === 0 ? model0 : modelOf(raw), outputs.sides)) found.add(m);
+        evaluated++;
+      } catch (e) {
+        if (!isPointError(e)) throw e;
+        failure ??= e; // that point will fail when evaluated, with its reason; the others decide
+      }
     }
+    if (evaluated === 0) {
+      throw new InputError('sweep.outputs.orders', `'all' takes the orders that propagate at the sweep's corner points, which cannot be evaluated (${failure!.message}); list the orders instead, e.g. "orders": [-1, 0, 1]`);
+    }
+    orders = [...found].sort((a, b) => a - b);
   } else {
     const listed: ReadonlyArray<number> = outputs.orders;
     orders = [...listed].sort((a, b) => a - b);
@@ -234,8 +246,32 @@ function checkOutputs(o: OutputSpec, design: Record<string, unknown>, fields: Fi
   }
 }
 
-/** The retained orders that propagate at the plan's first point in the cover (R) and/or substrate (T). */
-function propagatingAtFirst(plan: SweepPlan, raw: Record<string, unknown>, model: DesignModel, sides: ReadonlyArray<'R' | 'T'>): number[] {
+/** Most points tried for 'all' orders; beyond, each parameter contributes only its ends. */
+const MAX_CORNERS = 256;
+
+/**
+ * The points at which 'all' orders are collected: every combination of each parameter's ends
+ * and, for a list of at most CHECK_EACH_UP_TO values, each value (all points of a zip of that
+ * size). An order propagates on an interval of λ, sin θ and λ/Λ (the grating equation is linear
+ * in them), so the ends of each range find every order that propagates anywhere in between, up
+ * to the dispersion of the cover and substrate.
+ */
+function cornerIndices(plan: SweepPlan, params: ReadonlyArray<{ readonly values?: unknown }>): number[] {
+  if (plan.count <= 1) return [0];
+  if (plan.combine === 'zip') return plan.count <= CHECK_EACH_UP_TO ? [...Array(plan.count).keys()] : [0, plan.count - 1];
+  const ends = (n: number): number[] => (n > 1 ? [0, n - 1] : [0]);
+  let per = plan.axes.map((a, k) => (params[k]?.values && a.values.length <= CHECK_EACH_UP_TO ? [...Array(a.values.length).keys()] : ends(a.values.length)));
+  if (per.reduce((p, l) => p * l.length, 1) > MAX_CORNERS) per = plan.axes.map((a) => ends(a.values.length));
+  let out = [0];
+  plan.axes.forEach((a, k) => {
+    // first axis slowest: index = (…(i0·n1 + i1)·n2 + i2…)
+    out = out.flatMap((base) => per[k]!.map((i) => base * a.values.length + i));
+  });
+  return out.slice(0, MAX_CORNERS);
+}
+
+/** The retained orders that propagate at one point in the cover (R) and/or substrate (T). */
+function propagatingAt(plan: SweepPlan, raw: Record<string, unknown>, model: DesignModel, sides: ReadonlyArray<'R' | 'T'>): number[] {
   const inc = readIncidence(raw);
   const thetaDeg = plan.mount.kind === 'fixed' ? inc.thetaDeg : mountThetaDeg(plan.mount, inc.wavelengthUm, model.periodUm, coverIndex(model, inc.wavelengthUm).re);
   const p = problemAt(model, inc.wavelengthUm, { ...inc, thetaDeg });

@@ -31,7 +31,7 @@ export type Mount =
 
 /** Which numbers each point reports (each becomes one or more CSV columns). */
 export interface OutputSpec {
-  /** orders by index, or 'all' for every order propagating anywhere in the sweep's first point */
+  /** orders by index, or 'all' for every order propagating at any corner of the sweep (see planSweep) */
   readonly orders: ReadonlyArray<number> | 'all';
   /** reflected (R) and/or transmitted (T) */
   readonly sides: ReadonlyArray<'R' | 'T'>;

@@ -155,7 +155,7 @@ describe('columns', () => {
     ]);
   });
 
-  it("the defaults report every order of the first point, R and T, TE/TM/unpolarized, with totals", () => {
+  it("the defaults report every propagating order, R and T, TE/TM/unpolarized, with totals", () => {
     const p = plan({ parameters: [wl('500nm', '700nm', 3)] });
     // grating equation at λ/Λ = 0.5, θ = 0: |0.5·m| < 1 in air → m = −1…1; |0.5·m| < 1.5 in n = 1.5 → m = −2…2
     expect(p.orders).toEqual([-2, -1, 0, 1, 2]);
@@ -168,6 +168,15 @@ describe('columns', () => {
   it("'all' with reflection only takes the orders propagating in the cover (m = −1…1 at λ/Λ = 0.5)", () => {
     const p = plan({ parameters: [wl('500nm', '700nm', 3)], outputs: { sides: ['R'] } });
     expect(p.orders).toEqual([-1, 0, 1]);
+  });
+
+  it("'all' takes the orders propagating anywhere in the range, not only at its first point (grating equation: |λ/Λ·m| < 1 in air)", () => {
+    // from 700 nm down to 400 nm: at the first point (λ/Λ = 0.7) only m = −1…1 propagate in air, at 400 nm (0.4) m = −2…2
+    const p = plan({ parameters: [wl('700nm', '400nm', 4)], outputs: { sides: ['R'] } });
+    expect(p.orders).toEqual([-2, -1, 0, 1, 2]);
+    // on a grid with the angle: at θ = 30° and 400 nm, kx = 0.5 + 0.4·m < 1 also for m = 1 and > −1 down to m = −3
+    const g = plan({ parameters: [wl('700nm', '400nm', 4), { path: 'incidence.angleDeg', values: [0, 30] }], outputs: { sides: ['R'] } });
+    expect(g.orders).toEqual([-3, -2, -1, 0, 1, 2]);
   });
 
   it('the plan is plain JSON (it survives a round trip unchanged)', () => {
@@ -240,7 +249,7 @@ describe('validation names the field', () => {
     ['an order listed twice', { parameters: [wl('400nm', '700nm', 3)], outputs: { orders: [1, 1] } }, /^sweep\.outputs\.orders\[1\]: order 1 is listed twice/],
     ['no parameters', { parameters: [] }, /^sweep\.parameters: give at least one parameter/],
     ['a list index past the end', { parameters: [{ path: 'layers[5].thickness', values: ['5nm'] }] }, /^sweep\.parameters\[0\]\.path: 'layers\[5\]\.thickness': the design's 'layers' has 1 item/, { ...design, grating: undefined, layers: [{ thickness: '10 nm', index: 2 }] }],
-    ["'all' when the first point cannot be evaluated", { parameters: [wl('5um', '6um', 2)] }, /^sweep\.outputs\.orders: 'all' takes the orders that propagate at the first point, which cannot be evaluated \(.*fused-silica.*outside its valid range/, { ...design, substrate: 'fused-silica' }],
+    ["'all' when the first point cannot be evaluated", { parameters: [wl('5um', '6um', 2)] }, /^sweep\.outputs\.orders: 'all' takes the orders that propagate at the sweep's corner points, which cannot be evaluated \(.*fused-silica.*outside its valid range/, { ...design, substrate: 'fused-silica' }],
   ];
   for (const [what, spec, msg, d] of bad) {
     it(`rejects ${what}`, () => {
