@@ -36,8 +36,9 @@ function isRecord(v: unknown): v is Record<string, unknown> {
  * values are kept in the unit of `from` or `unit`); ranges (count ≥ 1, step toward `to`, log
  * spacing with positive ends); equal lengths for 'zip'; the mount (non-zero order, classical
  * incidence, no parameter on the angle it sets); the outputs. The design is built at the first
- * point and at each parameter's other values (the ends of ranges), so a value the design rejects
- * is reported here, naming the parameter. What can only fail at some points (a material out of
+ * point and at each parameter's other values (the ends of ranges, each value of a short list;
+ * on a zip, at those points themselves, since its values go together), so a value the design
+ * rejects is reported here, naming the parameter. What can only fail at some points (a material out of
  * range, a mount without solution) is left to those points.
  *
  * `outputs.orders: 'all'` becomes the orders that propagate in the cover (R) or the substrate
@@ -117,35 +118,46 @@ export function planSweep(design: unknown, spec: SweepSpec, readText?: ReadText)
   const plan0 = { design: base, axes, combine, mount, outputs, count, columns: [], orders: [] } satisfies SweepPlan;
   const first = pointAt(plan0, 0);
   const raw0 = rawPointDesign(plan0, first.values);
-  const attempt = (raw: Record<string, unknown>, i: number | null, at: string, value: number | string): void => {
+  /** The parameter an error's path is about, or −1. */
+  const aboutParameter = (e: InputError): number =>
+    fields.findIndex((f) => e.path === f.quantity || e.path.startsWith(f.quantity) || e.path.startsWith(s.parameters[fields.indexOf(f)]!.path));
+  /** Build the design at point values `vals` (value number j of each parameter that varies); blame parameter i (null: the first point). */
+  const attempt = (vals: ReadonlyArray<number | string>, j: number, i: number | null): void => {
     try {
+      const raw = j === 0 ? raw0 : rawPointDesign(plan0, vals);
       readIncidence(raw);
       knownMaterials(modelOf(raw));
     } catch (e) {
       if (!(e instanceof InputError)) throw e;
-      let k = i;
-      if (k === null) {
-        // at the first point: blame the parameter the message is about, else the design
-        const j = fields.findIndex((f) => e.path === f.quantity || e.path.startsWith(f.quantity) || e.path.startsWith(s.parameters[fields.indexOf(f)]!.path));
-        if (j < 0) throw e;
-        k = j;
-        at = s.parameters[j]!.values ? 'values[0]' : 'from';
-        value = first.values[j]!;
-      }
+      // at the first point, and at a zip point (all parameters change together): the parameter
+      // the message is about, else the one being checked, else the design itself
+      let k = i === null || combine === 'zip' ? aboutParameter(e) : i;
+      if (k < 0) k = i ?? -1;
+      if (k < 0) throw e;
+      const at = s.parameters[k]!.values ? `values[${j}]` : j === 0 ? 'from' : 'to';
+      const value = vals[k]!;
       const shown = axes[k]!.unit && axes[k]!.unit !== 'deg' ? `${value} ${axes[k]!.unit}` : JSON.stringify(value);
       throw new InputError(`sweep.parameters[${k}].${at}`, `${shown} makes the design invalid: ${e.message}`);
     }
   };
-  attempt(raw0, null, '', '');
+  attempt(first.values, 0, null);
+  const checkedZip = new Set<number>([0]);
   axes.forEach((a, i) => {
     const p = s.parameters[i]!;
     const n = a.values.length;
     const idx = p.values ? (n <= CHECK_EACH_UP_TO ? [...Array(n).keys()] : [0, n - 1]) : [n - 1];
     for (const j of idx) {
       if (j === 0) continue; // the first point
-      const vals = [...first.values];
-      vals[i] = a.values[j]!;
-      attempt(rawPointDesign(plan0, vals), i, p.values ? `values[${j}]` : 'to', a.values[j]!);
+      if (combine === 'zip') {
+        // the values of a zip go together: check the point itself, once
+        if (checkedZip.has(j)) continue;
+        checkedZip.add(j);
+        attempt(pointAt(plan0, j).values, j, i);
+      } else {
+        const vals = [...first.values];
+        vals[i] = a.values[j]!;
+        attempt(vals, j, i);
+      }
     }
   });
 

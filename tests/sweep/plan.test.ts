@@ -179,6 +179,17 @@ describe('columns', () => {
     expect(g.orders).toEqual([-3, -2, -1, 0, 1, 2]);
   });
 
+  it('a zip whose values are valid only together is accepted, and a zip point the design rejects is reported with its parameter', () => {
+    // sawtooth rule: apex in [90° − blaze, 180° − blaze); (10°, 100°) and (40°, 60°) are both valid, (10°, 60°) is not
+    const saw = { ...design, grating: { profile: 'sawtooth', blazeDeg: 20, ridge: 1.5 }, slices: 4 };
+    const zip = { parameters: [{ path: 'grating.blazeDeg', values: [10, 40] }, { path: 'grating.apexDeg', values: [100, 60] }], combine: 'zip' as const };
+    expect(plan(zip, saw).count).toBe(2);
+    const bad = { ...zip, parameters: [zip.parameters[0]!, { path: 'grating.apexDeg', values: [100, 45] }] };
+    expect(() => plan(bad, saw)).toThrow(/^sweep\.parameters\[1\]\.values\[1\]: 45 makes the design invalid: .*apexDeg/);
+    // on a grid the same values do meet: (10°, 60°) is a point of it
+    expect(() => plan({ parameters: zip.parameters }, saw)).toThrow(/^sweep\.parameters\[1\]\.values\[1\]: 60 makes the design invalid/);
+  });
+
   it('the plan is plain JSON (it survives a round trip unchanged)', () => {
     const p = plan({ parameters: [wl('400nm', '600nm', 3)], mount: { kind: 'deviation', order: -1, deviationDeg: 10 } });
     expect(JSON.parse(JSON.stringify(p))).toEqual(p);
