@@ -1,7 +1,10 @@
 /**
  * Sweep runner benchmark: points per second on 1 and 2 workers, and what the engine's caches save.
  *
- *   npx tsx scripts/bench-sweep.ts                         # both cases, table + one JSON line per run
+ *   npm run bench:sweep                                    # both cases, table + one JSON line per run
+ *   (that is node --initial-old-space-size=128 --import tsx scripts/bench-sweep.ts: the heap
+ *   sizing the furrow command runs with, see src/cli/heap.ts; plain npx tsx runs this thread
+ *   with V8's defaults, and the header says so)
  *   npx tsx scripts/bench-sweep.ts --case wavelength --orders 15 --points 400   # a smaller problem
  *   npx tsx scripts/bench-sweep.ts --case depth --depth-points 100 --repeats 3   # fastest of 3
  *
@@ -41,6 +44,7 @@ import { dirname, resolve } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { planSweep, type SweepSpec } from '../src/sweep/index.ts';
 import { runPoints } from '../src/cli/sweep-run.ts';
+import { HEAP_FLAGS, tuneHeapForWorkers } from '../src/cli/heap.ts';
 
 const ROOT = resolve(dirname(fileURLToPath(import.meta.url)), '..');
 
@@ -219,6 +223,9 @@ function table(runs: Run[]): string[] {
 
 async function main(): Promise<void> {
   const args = parseArgs(process.argv.slice(2));
+  tuneHeapForWorkers(); // as the furrow command does
+  const mainFlags = HEAP_FLAGS.filter((f) => process.execArgv.includes(f));
+  console.log(`heap: worker threads ${HEAP_FLAGS.join(' ')}; this thread ${mainFlags.length === HEAP_FLAGS.length ? 'the same' : 'V8 defaults (run it as npm run bench:sweep to match the furrow command)'}`);
   console.log(`sweep bench: ${availableParallelism()} cores, load average ${loadavg()[0]!.toFixed(1)} at the start (runs are only comparable on an otherwise idle machine)`);
   const runs = await runSweepBench(args);
   for (const l of table(runs)) console.log(l);
