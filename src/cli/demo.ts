@@ -7,16 +7,17 @@ import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import example from '../design/examples/blazed-aluminium-spectrometer.json' with { type: 'json' };
 import { sweepCommand } from './sweep-command.ts';
+import { csvFields } from './sweep-output.ts';
 
 export const DEMO_DESIGN_PATH = fileURLToPath(new URL('../design/examples/blazed-aluminium-spectrometer.json', import.meta.url));
 
-/** Parse the sweep's CSV (numbers, '' for absent cells) by column name. */
+/** Parse the sweep's CSV by column name: numbers, null for empty or text cells (a failed row's). */
 export function readCsvColumns(text: string): Map<string, Array<number | null>> {
   const lines = text.trim().split('\n');
-  const header = lines[0]!.split(',');
+  const header = csvFields(lines[0]!) ?? [];
   const cols = new Map<string, Array<number | null>>(header.map((h) => [h, []]));
   for (const line of lines.slice(1)) {
-    const cells = line.split(',');
+    const cells = csvFields(line) ?? [];
     header.forEach((h, i) => {
       const c = cells[i] ?? '';
       cols.get(h)!.push(c === '' || Number.isNaN(Number(c)) ? null : Number(c));

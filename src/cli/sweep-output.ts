@@ -211,10 +211,16 @@ export interface ExistingRows {
   readonly failed: number;
 }
 
-/** The n-th field (0-based) of a CSV line, with quoting undone; null if the line is shorter. */
-export function csvField(line: string, n: number): string | null {
+/**
+ * The fields of a CSV line, with quoting undone (a quoted field may hold commas and doubled
+ * quotes); null for a line whose quotes do not close.
+ * @example
+ * csvFields('7,407,"no, ""solution""",'); // → ['7', '407', 'no, "solution"', '']
+ */
+export function csvFields(line: string): string[] | null {
+  const out: string[] = [];
   let i = 0;
-  for (let f = 0; ; f++) {
+  for (;;) {
     let value = '';
     if (line[i] === '"') {
       i++;
@@ -235,10 +241,15 @@ export function csvField(line: string, n: number): string | null {
       value = line.slice(i, c < 0 ? line.length : c);
       i = c < 0 ? line.length : c;
     }
-    if (f === n) return value;
-    if (line[i] !== ',') return null;
+    out.push(value);
+    if (line[i] !== ',') return out;
     i++;
   }
+}
+
+/** The n-th field (0-based) of a CSV line, with quoting undone; null if the line is shorter (or its quotes do not close). */
+export function csvField(line: string, n: number): string | null {
+  return csvFields(line)?.[n] ?? null;
 }
 
 function rowFailed(format: SweepFormat, line: string, statusColumn: number): boolean {

@@ -8,9 +8,10 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { createEvalContext, evaluatePoint, planSweep } from '../../src/sweep/index.ts';
 import type { SweepRow } from '../../src/sweep/types.ts';
-import { csvField, OrderedWriter, rowText, scanRows, SweepFileError, sweepHash } from '../../src/cli/sweep-output.ts';
+import { csvField, csvFields, OrderedWriter, rowText, scanRows, SweepFileError, sweepHash } from '../../src/cli/sweep-output.ts';
 import { packRows, unpackRows } from '../../src/cli/sweep-protocol.ts';
 import { runPoints } from '../../src/cli/sweep-run.ts';
+import { readCsvColumns } from '../../src/cli/demo.ts';
 import { sweepCommand, type SweepFlags } from '../../src/cli/sweep-command.ts';
 import { specFromFlags } from '../../src/cli/sweep-spec.ts';
 import { expectedCsv, furrow, smallDesign, tempDir, writeJson } from './run-helpers.ts';
@@ -185,6 +186,17 @@ describe('ordered writing and reading back', () => {
     const line = rowText('csv', columns, row(7, true).cells).trimEnd();
     expect(line).toBe('7,407,,failed,"no, ""solution"""');
     expect([0, 1, 2, 3, 4, 5].map((j) => csvField(line, j))).toEqual(['7', '407', '', 'failed', 'no, "solution"', null]);
+    expect(csvFields(line)).toEqual(['7', '407', '', 'failed', 'no, "solution"']);
+    expect(csvFields('1,"open')).toBeNull();
+  });
+
+  it("the demo reads the sweep's CSV with the same field reader: numbers by column, null for a failed row's empty and text cells", () => {
+    const header = ['point_index', 'wavelength_nm', 'R_-1_TE', 'status', 'error'];
+    const text = [header.join(',') + '\n', rowText('csv', header, [0, 400, 0.5, 'ok', '']), rowText('csv', header, [1, 410, '', 'failed', 'material "Al", out of range, at 410 nm'])].join('');
+    const cols = readCsvColumns(text);
+    expect(cols.get('wavelength_nm')).toEqual([400, 410]);
+    expect(cols.get('R_-1_TE')).toEqual([0.5, null]);
+    expect(cols.get('error')).toEqual([null, null]);
   });
 
   it('rows packed for transfer unpack to the same cells, including −0, text cells and failures', () => {
