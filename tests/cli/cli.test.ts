@@ -3,13 +3,9 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { main } from '../../src/cli/main.ts';
+import { cli } from './run-cli.ts';
 
-async function run(...args: string[]): Promise<{ code: number; text: string }> {
-  const lines: string[] = [];
-  const code = await main(['node', 'furrow', ...args], (s) => lines.push(s));
-  return { code, text: lines.join('\n') };
-}
+const run = (...args: string[]): Promise<{ code: number; text: string }> => cli(args);
 
 const dir = mkdtempSync(join(tmpdir(), 'furrow-cli-'));
 const write = (name: string, content: unknown): string => {

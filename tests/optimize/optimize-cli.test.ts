@@ -5,34 +5,9 @@
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { CommanderError } from 'commander';
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../src/design/index.ts';
-import { buildProgram, CliFailure, main } from '../../src/cli/main.ts';
-import { parseRequireFlag, parseVaryFlag, registerOptimizeCommands } from '../../src/cli/optimize.ts';
-
-/** Runs the CLI: through main() once it registers the command, else the same error path by hand. */
-async function cli(args: string[]): Promise<{ code: number; text: string }> {
-  const chunks: string[] = [];
-  const out = (s: string): void => void chunks.push(s);
-  const program = buildProgram(out);
-  if (program.commands.some((c) => c.name() === 'optimize')) return { code: await main(['node', 'furrow', ...args], out), text: chunks.join('\n') };
-  registerOptimizeCommands(program, out);
-  let code = 0;
-  try {
-    await program.parseAsync(['node', 'furrow', ...args]);
-  } catch (e) {
-    if (e instanceof CommanderError) code = e.exitCode === 0 ? 0 : 2;
-    else if (e instanceof CliFailure) {
-      out(`furrow: ${e.message}`);
-      code = e.exitCode;
-    } else if (e instanceof InputError) {
-      out(e.path.startsWith('--') ? `furrow: ${e.message}` : `furrow: invalid design — ${e.message}`);
-      code = 2;
-    } else throw e;
-  }
-  return { code, text: chunks.join('\n') };
-}
+import { parseRequireFlag, parseVaryFlag } from '../../src/cli/optimize.ts';
+import { cli } from '../cli/run-cli.ts';
 
 const dir = mkdtempSync(join(tmpdir(), 'furrow-optimize-'));
 /** Binary phase grating in the scalar regime (Λ/λ = 10, n = 1.5): the π step is at 1000 nm. */

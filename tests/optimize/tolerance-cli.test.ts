@@ -2,60 +2,12 @@
  * `furrow tolerance` on the command line: report, JSON, reproducibility (also across worker
  * counts, in a separate process as a user runs it), and one clear line for bad input.
  */
-import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { CommanderError } from 'commander';
 import { describe, expect, it } from 'vitest';
-import { InputError } from '../../src/design/index.ts';
-import { buildProgram, CliFailure, main } from '../../src/cli/main.ts';
-import { registerOptimizeCommands } from '../../src/cli/optimize.ts';
 import { parseToleranceFlag } from '../../src/cli/tolerance.ts';
-
-const ROOT = fileURLToPath(new URL('../..', import.meta.url));
-const wired = buildProgram(() => {}).commands.some((c) => c.name() === 'tolerance');
-
-/** Runs the CLI in this process: through main() once it registers the command, else the same error path by hand. */
-async function cli(args: string[]): Promise<{ code: number; text: string }> {
-  const chunks: string[] = [];
-  const out = (s: string): void => void chunks.push(s);
-  if (wired) return { code: await main(['node', 'furrow', ...args], out), text: chunks.join('\n') };
-  const program = buildProgram(out);
-  registerOptimizeCommands(program, out);
-  let code = 0;
-  try {
-    await program.parseAsync(['node', 'furrow', ...args]);
-  } catch (e) {
-    if (e instanceof CommanderError) code = e.exitCode === 0 ? 0 : 2;
-    else if (e instanceof CliFailure) {
-      out(`furrow: ${e.message}`);
-      code = e.exitCode;
-    } else if (e instanceof InputError) {
-      out(e.path.startsWith('--') ? `furrow: ${e.message}` : `furrow: invalid design — ${e.message}`);
-      code = 2;
-    } else throw e;
-  }
-  return { code, text: chunks.join('\n') };
-}
-
-/** Runs the CLI in a new Node process (worker threads need one of their own). */
-function cliProcess(args: string[], env: Record<string, string> = {}): { code: number; text: string } {
-  const argv = wired
-    ? [join(ROOT, 'src/cli/bin.mjs'), ...args]
-    : [
-        '--import',
-        'tsx',
-        '--input-type=module',
-        '-e',
-        "const { buildProgram } = await import('./src/cli/main.ts'); const { registerOptimizeCommands } = await import('./src/cli/optimize.ts');" +
-          ' const out = (s) => console.log(s); const p = buildProgram(out); registerOptimizeCommands(p, out); await p.parseAsync(process.argv.slice(1), { from: "user" });',
-        ...args,
-      ];
-  const r = spawnSync(process.execPath, argv, { cwd: ROOT, env: { ...process.env, ...env }, encoding: 'utf8', timeout: 100_000 });
-  return { code: r.status ?? -1, text: (r.stdout + r.stderr).trim() };
-}
+import { cli, cliProcess } from '../cli/run-cli.ts';
 
 const dir = mkdtempSync(join(tmpdir(), 'furrow-tolerance-'));
 const design = join(dir, 'binary.json');
