@@ -3,18 +3,9 @@
  * Pure functions returning lines of text; main.ts prints them. Errors are MaterialError (unknown
  * name with suggestions, wavelength outside the valid range, invalid arguments).
  */
-import { MaterialError, type MaterialLibrary, type MaterialListing } from '../materials/index.ts';
+import { formatUm, MaterialError, type MaterialLibrary, type MaterialListing, modelLabel } from '../materials/index.ts';
 
-const LABEL: Record<string, string> = {
-  constant: 'constant',
-  sellmeier: 'Sellmeier',
-  cauchy: 'Cauchy',
-  drude: 'Drude',
-  'lorentz-drude': 'Lorentz–Drude',
-  table: 'table',
-};
-const sig = (x: number): string => (x === Infinity ? '∞' : String(Number(x.toPrecision(7))));
-const range = (r: readonly [number, number]): string => (r[0] === 0 && r[1] === Infinity ? 'any' : `${sig(r[0])}–${sig(r[1])}`);
+const range = (r: readonly [number, number]): string => (r[0] === 0 && r[1] === Infinity ? 'any' : `${formatUm(r[0])}–${formatUm(r[1])}`);
 
 /**
  * The library as a table: name, model, valid range (µm) and source, with each entry's notes
@@ -28,7 +19,7 @@ const range = (r: readonly [number, number]): string => (r[0] === 0 && r[1] === 
 export function materialsList(lib: MaterialLibrary): string[] {
   const rows = lib.list();
   const idW = Math.max(4, ...rows.map((r) => r.id.length));
-  const modelW = Math.max(5, ...rows.map((r) => LABEL[r.kind]!.length));
+  const modelW = Math.max(5, ...rows.map((r) => modelLabel(r.kind).length));
   const rangeW = Math.max(10, ...rows.map((r) => range(r.validRangeUm).length));
   const indent = ' '.repeat(idW + modelW + rangeW + 6);
   const line = (a: string, b: string, c: string, d: string): string => `${a.padEnd(idW)}  ${b.padEnd(modelW)}  ${c.padEnd(rangeW)}  ${d}`.trimEnd();
@@ -39,7 +30,7 @@ export function materialsList(lib: MaterialLibrary): string[] {
     out.push(title);
     out.push(line('name', 'model', 'range (µm)', 'source'));
     for (const r of list) {
-      out.push(line(r.id, LABEL[r.kind]!, range(r.validRangeUm), r.citation));
+      out.push(line(r.id, modelLabel(r.kind), range(r.validRangeUm), r.citation));
       const notes = [...r.notes.map((n) => (n === 'from memory' ? 'FROM MEMORY: not re-read in the cited source' : n))];
       if (r.overridden) notes.unshift('overridden by the user material of the same name');
       for (const n of notes) out.push(`${indent}note: ${n}`);
@@ -80,13 +71,13 @@ export function materialsShow(lib: MaterialLibrary, name: string, fromUm: number
   if (!(Number.isFinite(fromUm) && fromUm > 0 && Number.isFinite(toUm) && toUm > 0)) {
     throw new MaterialError('invalid-argument', `--from and --to must be positive lengths, found ${fromUm} µm and ${toUm} µm`, m.id);
   }
-  if (toUm < fromUm) throw new MaterialError('invalid-argument', `--to (${sig(toUm)} µm) is below --from (${sig(fromUm)} µm)`, m.id);
+  if (toUm < fromUm) throw new MaterialError('invalid-argument', `--to (${formatUm(toUm)} µm) is below --from (${formatUm(fromUm)} µm)`, m.id);
   if (!(Number.isInteger(steps) && steps >= 1 && steps <= 10000)) {
     throw new MaterialError('invalid-argument', `steps must be an integer from 1 to 10000, found ${steps}`, m.id);
   }
   const count = toUm === fromUm ? 1 : steps + 1;
   const out: string[] = [
-    `material  ${m.id} (${LABEL[m.kind]}${m.user ? ', user' : ''})`,
+    `material  ${m.id} (${modelLabel(m.kind)}${m.user ? ', user' : ''})`,
     `source    ${m.citation}`,
     `range     ${range(m.validRangeUm)}${m.validRangeUm[1] === Infinity && m.validRangeUm[0] === 0 ? '' : ' µm'}`,
     ...m.notes.map((n) => `note      ${n === 'from memory' ? 'FROM MEMORY: not re-read in the cited source' : n}`),

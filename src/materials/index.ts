@@ -26,3 +26,4 @@ export * from './entry.ts';
 export * from './builtins.ts';
 export * from './library.ts';
 export { suggestNames } from './suggest.ts';
+export { formatUm, modelLabel } from './format.ts';
