@@ -488,17 +488,21 @@ export function rayleighWavelengths(
   nCover: number,
   nSubstrate: number,
 ): RayleighWavelengths {
-  const fn = 'rayleighWavelengths';
+  const { alpha0, beta } = checkedInPlane('rayleighWavelengths', m, period, thetaRad, phiRad, nCover, nSubstrate);
+  return {
+    cover: grazingWavelengths(m, period, alpha0, beta, nCover),
+    substrate: grazingWavelengths(m, period, alpha0, beta, nSubstrate),
+  };
+}
+
+/** The checks shared by the wavelength functions of one order, then the incidence's in-plane components. */
+function checkedInPlane(fn: string, m: number, period: number, thetaRad: number, phiRad: number, nCover: number, nSubstrate: number): { alpha0: number; beta: number } {
   order(fn, 'm', m);
   positive(fn, 'period', period);
   checkAngles(fn, thetaRad, phiRad);
   positive(fn, 'nCover', nCover);
   positive(fn, 'nSubstrate', nSubstrate);
-  const { alpha0, beta } = inPlane(fn, thetaRad, phiRad, nCover);
-  return {
-    cover: grazingWavelengths(m, period, alpha0, beta, nCover),
-    substrate: grazingWavelengths(m, period, alpha0, beta, nSubstrate),
-  };
+  return inPlane(fn, thetaRad, phiRad, nCover);
 }
 
 /** Longest propagating wavelength of an order on each side of the grating. */
@@ -535,12 +539,7 @@ export function cutoffWavelength(
   nSubstrate: number,
 ): CutoffWavelengths {
   const fn = 'cutoffWavelength';
-  order(fn, 'm', m);
-  positive(fn, 'period', period);
-  checkAngles(fn, thetaRad, phiRad);
-  positive(fn, 'nCover', nCover);
-  positive(fn, 'nSubstrate', nSubstrate);
-  const { alpha0, beta } = inPlane(fn, thetaRad, phiRad, nCover);
+  const { alpha0, beta } = checkedInPlane(fn, m, period, thetaRad, phiRad, nCover, nSubstrate);
   const cover = cutoffIn(m, period, alpha0, beta, nCover);
   // In the cover |α0| < √(nCover² − β²) (checked by inPlane), so the window reaches some λ > 0;
   // only an incidence at the edge of rounding could spoil that.
