@@ -42,14 +42,14 @@ export const WORKER_ENTRY = fileURLToPath(new URL('../../workers/sweep-worker.mj
 
 /** A batch aims at this much work on one thread. */
 export const TARGET_BATCH_MS = 150;
+/** … and holds at most this many points. */
+export const MAX_BATCH = 512;
+/** Batches handed to one thread at a time. */
+export const QUEUED_PER_THREAD = 3;
 /** The main thread evaluates in slices of about this long, between which it hands out thread work. */
 export const MAIN_SLICE_MS = 50;
 /** The CLI's deferThreadsMs when --workers is not given: threads start only for a run longer than this on one lane. */
 export const THREADS_WORTH_MS = 3000;
-/** Batches handed to one thread at a time. */
-export const QUEUED_PER_THREAD = 3;
-/** … and holds at most this many points. */
-export const MAX_BATCH = 512;
 
 export interface PoolRunOptions {
   readonly plan: SweepPlan;
@@ -135,7 +135,6 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   const setup: WorkerSetup = { plan: o.plan, baseDir: o.baseDir, freshContextPerPoint: !!o.freshContextPerPoint };
   /** the worker threads, once started (at once, or with deferThreadsMs when the work is worth it) */
   let pool: Piscina<BatchTask, BatchResult> | null = null;
-  let threadsStarted = 0;
   function startThreads(): void {
     if (pool !== null || threads === 0 || destroyed !== null) return;
     pool = new Piscina<BatchTask, BatchResult>({
@@ -149,7 +148,6 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
       concurrentTasksPerWorker: QUEUED_PER_THREAD,
       workerData: setup,
     });
-    threadsStarted = threads;
     // a thread that fails outside a task (while starting) is reported here, not through a task;
     // piscina starts no new thread after a start-up failure, so the threads are done for
     pool.on('error', (e: unknown) => giveUpThreads(messageOf(e)));
@@ -162,8 +160,8 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   const worthThreads = (): boolean => {
     const worth = o.deferThreadsMs;
     if (worth === undefined) return true;
-    if (steadyMs !== null) return (o.end - cursor) * steadyMs > worth;
-    return firstSliceMs !== null && firstSliceMs > worth;
+    if (mainSlices >= 3) return (o.end - cursor) * lastPace > worth;
+    return mainSlices > 0 && firstSliceMs > worth;
   };
   const readText = (file: string): string => readFileSync(resolve(o.baseDir, file), 'utf8');
   const cancel = new AbortController();
@@ -187,10 +185,10 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   let threadFault: string | null = null;
   let mainRunning = false;
   let msPerPoint: number | null = null;
-  /** this thread's first slice (ms), and its pace after that (ms per point, latest slice) */
-  let firstSliceMs: number | null = null;
-  let steadyMs: number | null = null;
-  let slicesAfterFirst = 0;
+  /** this thread's slices so far, the first one's length (ms) and the latest one's pace (ms per point) */
+  let mainSlices = 0;
+  let firstSliceMs = 0;
+  let lastPace = 0;
   let stopped = false;
   let fatal: unknown = null;
   let finish!: () => void;
@@ -349,7 +347,7 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
   }
 
   function pump(): void {
-    if (pool === null && threads > 0 && threadFault === null && !stopped && cursor < o.end && worthThreads()) startThreads();
+    if (pool === null && !stopped && cursor < o.end && worthThreads()) startThreads();
     while (pool && threadFault === null && !stopped && inflight.size < maxInflight) {
       const w = nextWork();
       if (w === null) break;
@@ -383,8 +381,8 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
         }
         const ms = performance.now() - t0;
         measured(ms, rows.length);
-        if (firstSliceMs === null) firstSliceMs = ms;
-        else if (++slicesAfterFirst >= 2) steadyMs = ms / Math.max(1, rows.length);
+        if (mainSlices++ === 0) firstSliceMs = ms;
+        lastPace = ms / Math.max(1, rows.length);
         deliver(rows);
         pump(); // hand out thread work (and start the threads, once they are worth it)
         await new Promise<void>((r) => setImmediate(r));
@@ -419,5 +417,5 @@ export async function runPoints(o: PoolRunOptions): Promise<PoolRunSummary> {
     await destroyPool();
   }
   if (fatal !== null) throw fatal;
-  return { delivered, retriedBatches, workerFailedPoints, interrupted: delivered < total, threadFault, lanes: 1 + threadsStarted };
+  return { delivered, retriedBatches, workerFailedPoints, interrupted: delivered < total, threadFault, lanes: pool === null ? 1 : lanes };
 }
