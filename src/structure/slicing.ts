@@ -6,7 +6,8 @@
  * material interfaces), so no slice straddles a jump of the fill. On each piece the "change"
  * C(z) is the cumulative fraction of the period whose material differs between neighbouring
  * heights, measured on 128 equal steps; for a single-valued surface this is the cumulative
- * |d(fill)/dz|, measured from the fill itself when the shape gives it (`fillAt`). A piece over which nothing changes (a flat level, a uniform film) gets exactly one
+ * |d(fill)/dz|, measured from the fill itself when the shape gives it (`fillAt`). A piece over
+ * which nothing changes (a flat level, a uniform film) gets exactly one
  * slice. The remaining slices are shared out by weight, each piece getting at least one:
  * - 'uniform': weight = height, and equal heights within a piece;
  * - 'adaptive': weight density w(z) = α/H + (1 − α)·c(z)/C_total with α = 0.25 and H the total
@@ -57,20 +58,11 @@ export function sliceShape(shape: ProfileShape, slices: number, strategy: SliceS
     const d = 1e-9 * (b - a);
     const nodes: number[] = [];
     const cum: number[] = [];
-    let prev: NamedSegment[] | undefined;
-    let prevFill = 0;
+    const changeAt = changeMeter(shape);
     let total = 0;
     for (let k = 0; k <= STEPS; k++) {
       const z = a + d + ((b - a - 2 * d) * k) / STEPS;
-      if (shape.fillAt) {
-        const f = shape.fillAt(z);
-        if (k > 0) total += Math.abs(prevFill - f);
-        prevFill = f;
-      } else {
-        const segs = shape.materialsAt(z);
-        if (prev) total += segmentsDiffer(prev, segs);
-        prev = segs;
-      }
+      total += changeAt(z);
       nodes.push(z);
       cum.push(total);
     }
@@ -138,6 +130,31 @@ export function sliceShape(shape: ProfileShape, slices: number, strategy: SliceS
     layers.push(layerOf(hi - lo, shape.materialsAt(0.5 * (lo + hi))));
   }
   return { layers, boundariesUm: boundaries, notes };
+}
+
+/**
+ * A function of height that returns the fraction of the period whose material differs from that
+ * at the height of its previous call (0 at the first call): from the fill when the shape gives it,
+ * else by comparing the segments.
+ */
+function changeMeter(shape: ProfileShape): (z: number) => number {
+  if (shape.fillAt) {
+    const fillAt = shape.fillAt;
+    let prev: number | null = null;
+    return (z) => {
+      const f = fillAt(z);
+      const c = prev === null ? 0 : Math.abs(prev - f);
+      prev = f;
+      return c;
+    };
+  }
+  let prev: NamedSegment[] | null = null;
+  return (z) => {
+    const segs = shape.materialsAt(z);
+    const c = prev === null ? 0 : segmentsDiffer(prev, segs);
+    prev = segs;
+    return c;
+  };
 }
 
 /** A slice: 'uniform' when one material fills the period, else 'segments'. */

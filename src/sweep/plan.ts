@@ -172,7 +172,7 @@ export function planSweep(design: unknown, spec: SweepSpec, readText?: ReadText)
     for (const index of cornerIndices(plan0, s.parameters)) {
       const raw = index === 0 ? raw0 : rawPointDesign(plan0, pointAt(plan0, index).values);
       try {
-        for (const m of propagatingAt(plan0, raw, index === 0 ? model0 : modelOf(raw), outputs.sides)) found.add(m);
+        for (const m of propagatingAt(plan0, raw, modelOf(raw), outputs.sides)) found.add(m);
         evaluated++;
       } catch (e) {
         if (!isPointError(e)) throw e;
