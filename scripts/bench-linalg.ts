@@ -13,6 +13,7 @@
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { cmatrix, type CMatrix } from '../src/linalg/cmatrix.ts';
+import { hermitianPart, seededMatrix } from './bench-matrices.ts';
 import { zgemm } from '../src/linalg/zgemm.ts';
 import { luFactors, zgesv } from '../src/linalg/zgetrf.ts';
 import { linalgBackend, setLinalgBackend, type LinalgBackend } from '../src/linalg/wasm/runtime.ts';
@@ -74,33 +75,6 @@ function medianMs(fn: () => void, repeats: number): number {
   return samples[samples.length >> 1]!;
 }
 
-// seeded uniform [-1, 1) entries (Mulberry32), so every run times the same matrices
-function randomMatrix(n: number, seed: number): CMatrix {
-  let s = seed >>> 0;
-  const a = cmatrix(n, n);
-  for (let k = 0; k < a.data.length; k++) {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    a.data[k] = 2 * (((t ^ (t >>> 14)) >>> 0) / 4294967296) - 1;
-  }
-  return a;
-}
-
-function hermitianPart(a: CMatrix): CMatrix {
-  const n = a.rows;
-  const h = cmatrix(n, n);
-  for (let i = 0; i < n; i++) {
-    for (let j = 0; j < n; j++) {
-      const ij = 2 * (i * n + j);
-      const ji = 2 * (j * n + i);
-      h.data[ij] = 0.5 * (a.data[ij]! + a.data[ji]!);
-      h.data[ij + 1] = 0.5 * (a.data[ij + 1]! - a.data[ji + 1]!);
-    }
-  }
-  return h;
-}
 
 type EigenFn = (a: CMatrix, options: { vectors: boolean }) => unknown;
 
@@ -171,7 +145,7 @@ export async function runLinalgBench(options: BenchOptions = {}): Promise<BenchR
     // calls to reach optimized code), so the first size is timed at steady state too
     {
       const n = Math.min(...sizes, 21);
-      const a = randomMatrix(n, 1);
+      const a = seededMatrix(n, 1);
       const h = hermitianPart(a);
       const out = cmatrix(n, n);
       const fns: Array<() => unknown> = [() => zgemm(out, a, a), () => zgesv(a, a, out)];
@@ -183,8 +157,8 @@ export async function runLinalgBench(options: BenchOptions = {}): Promise<BenchR
       }
     }
     for (const n of sizes) {
-      const a = randomMatrix(n, 1000 + n);
-      const b = randomMatrix(n, 2000 + n);
+      const a = seededMatrix(n, 1000 + n);
+      const b = seededMatrix(n, 2000 + n);
       const h = hermitianPart(a);
       const out = cmatrix(n, n);
       const f = luFactors(n);

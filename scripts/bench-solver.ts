@@ -40,6 +40,7 @@
 import { spawnSync } from 'node:child_process';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { cmatrix, type CMatrix } from '../src/linalg/cmatrix.ts';
+import { seededMatrix } from './bench-matrices.ts';
 import { toeplitz } from '../src/linalg/toeplitz.ts';
 import { zgemm } from '../src/linalg/zgemm.ts';
 import { zgetrf, zgetri, zgetrs } from '../src/linalg/zgetrf.ts';
@@ -284,17 +285,9 @@ function runEigen(p: { kind: 'zheev' | 'zgeev'; a: CMatrix }): void {
   else zgeev(p.a, { vectors: true });
 }
 
-/** Seeded entries in [−1, 1) (Mulberry32) plus n on the diagonal: a well-conditioned matrix. */
-function seededMatrix(n: number, seed: number): CMatrix {
-  let s = seed >>> 0;
-  const a = cmatrix(n, n);
-  for (let k = 0; k < a.data.length; k++) {
-    s = (s + 0x6d2b79f5) >>> 0;
-    let t = s;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    a.data[k] = 2 * (((t ^ (t >>> 14)) >>> 0) / 4294967296) - 1;
-  }
+/** Seeded entries in [−1, 1) plus n on the diagonal: a well-conditioned matrix. */
+function wellConditioned(n: number, seed: number): CMatrix {
+  const a = seededMatrix(n, seed);
   for (let i = 0; i < n; i++) a.data[2 * (i * n + i)] += n;
   return a;
 }
@@ -530,8 +523,8 @@ export async function runSolverBench(options: SolverBenchOptions = {}): Promise<
       problems = coeffs.map((k) => eigenproblem(k.eps, k.inv, g.kx, fam, k.lossless));
       const prepared = prepare(structure, g, fam);
       // kernels of the recursion at this N (how often one solve calls each: stackKernelCounts)
-      const kA = seededMatrix(N, 11);
-      const kB = seededMatrix(N, 12);
+      const kA = wellConditioned(N, 11);
+      const kB = wellConditioned(N, 12);
       const kOut = cmatrix(N, N);
       const kLU = zgetrf(kA);
       const eig = problems;

@@ -10,22 +10,13 @@
  *     print((time.perf_counter() - t) / 20 * 1e3, 'ms')"
  * Other processes on a shared machine inflate both; compare runs taken back to back.
  */
-import { cmatrix, type CMatrix } from '../src/linalg/cmatrix.ts';
+import { seededMatrix } from './bench-matrices.ts';
 import { zgebal } from '../src/linalg/zgebal.ts';
 import { ZgeevWorkspace, zgeev } from '../src/linalg/zgeev.ts';
 import { zgehrd, zunghr } from '../src/linalg/zgehrd.ts';
 import { zhseqr } from '../src/linalg/zhseqr.ts';
 import { ztrevc } from '../src/linalg/ztrevc.ts';
 
-function randomMatrix(n: number, seed: number): CMatrix {
-  let s = seed >>> 0;
-  const a = cmatrix(n, n);
-  for (let k = 0; k < a.data.length; k++) {
-    s = (Math.imul(s, 1664525) + 1013904223) >>> 0;
-    a.data[k] = s / 2 ** 31 - 1;
-  }
-  return a;
-}
 
 function best(xs: number[]): number {
   const s = [...xs].sort((x, y) => x - y);
@@ -52,7 +43,7 @@ function time(reps: number, f: () => void): number {
 
 const sizes = process.argv.length > 2 ? process.argv.slice(2).map(Number) : [21, 51, 101, 201];
 for (const n of sizes) {
-  const a = randomMatrix(n, 1234 + n);
+  const a = seededMatrix(n, 1234 + n);
   const ws = new ZgeevWorkspace(n);
   const reps = Math.max(7, Math.round(3000 / n));
   for (let w = 0; w < 3 * reps; w++) zgeev(a, {}, ws); // warm-up (JIT)
