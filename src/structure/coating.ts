@@ -11,7 +11,7 @@
  */
 import { offsetSurface } from './offset.ts';
 import { segmentsFromRegions, type Interval } from './segments.ts';
-import { sliceShape } from './slicing.ts';
+import { profileFromShape } from './fromSurface.ts';
 import type { ProfileResult, ProfileShape, SliceStrategy } from './types.ts';
 import { fail, material, num, positiveLength, record, sliceCount, strategy } from './validate.ts';
 
@@ -66,20 +66,13 @@ export function conformalCoating(profile: ProfileResult, p: ConformalCoatingPara
       return segmentsFromRegions(regions, groove);
     },
   };
-  const s = sliceShape(shape, slices, strat);
-  return {
-    layers: s.layers,
-    slices: s.layers.length,
-    depthUm: H,
-    notes: [
+  return profileFromShape(
+    shape,
+    { ridgeMaterial: profile.ridgeMaterial, grooveMaterial: groove, slices, strategy: strat },
+    [
       ...profile.notes.filter((n) => !n.startsWith('slices:')),
       `conformal coating: ${num(t)} µm of ${coat} along the surface normal (rounded with radius ${num(t)} µm over convex corners); coated height ${num(H)} µm`,
-      ...s.notes,
     ],
-    periodUm: profile.periodUm,
-    ridgeMaterial: profile.ridgeMaterial,
-    grooveMaterial: groove,
-    shape,
-    surfaces: [...profile.surfaces, outer],
-  };
+    [...profile.surfaces, outer],
+  );
 }

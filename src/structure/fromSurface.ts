@@ -1,6 +1,7 @@
 /**
- * From a single-valued surface h(x) to a sliced profile: at height z the ridge material fills
- * the x where h(x) > z, the groove material the rest. Internal to src/structure.
+ * From a shape to a sliced profile, in particular from a single-valued surface h(x): at height z
+ * the ridge material fills the x where h(x) > z, the groove material the rest. Internal to
+ * src/structure.
  */
 import { segmentsFromRegions } from './segments.ts';
 import { polylineSurface } from './polyline.ts';
@@ -20,25 +21,32 @@ export function surfaceShape(surface: HeightProfile, ridge: string, groove: stri
   return shape;
 }
 
-/** Slice a surface profile into a {@link ProfileResult}. */
-export function profileFromSurface(
-  surface: HeightProfile,
-  p: { ridgeMaterial: string; grooveMaterial: string; slices: number; strategy: SliceStrategy },
-  notes: string[],
-): ProfileResult {
-  const shape = surfaceShape(surface, p.ridgeMaterial, p.grooveMaterial);
+/** Slicing settings and the materials a profile names. */
+type SliceSettings = { ridgeMaterial: string; grooveMaterial: string; slices: number; strategy: SliceStrategy };
+
+/**
+ * Slice any shape into a {@link ProfileResult}: its notes, then the slicing's; depth = the
+ * shape's height; `surfaces` the single-valued surfaces a coating may follow (none for an
+ * undercut or slanted ridge).
+ */
+export function profileFromShape(shape: ProfileShape, p: SliceSettings, notes: string[], surfaces: HeightProfile[]): ProfileResult {
   const s = sliceShape(shape, p.slices, p.strategy);
   return {
     layers: s.layers,
     slices: s.layers.length,
-    depthUm: surface.maxUm,
+    depthUm: shape.heightUm,
     notes: [...notes, ...s.notes],
-    periodUm: surface.periodUm,
+    periodUm: shape.periodUm,
     ridgeMaterial: p.ridgeMaterial,
     grooveMaterial: p.grooveMaterial,
     shape,
-    surfaces: [surface],
+    surfaces,
   };
+}
+
+/** Slice a surface profile into a {@link ProfileResult}. */
+export function profileFromSurface(surface: HeightProfile, p: SliceSettings, notes: string[]): ProfileResult {
+  return profileFromShape(surfaceShape(surface, p.ridgeMaterial, p.grooveMaterial), p, notes, [surface]);
 }
 
 /** Slice the polyline surface through `vertices` (x µm, h µm over one period). */

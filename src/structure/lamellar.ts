@@ -4,10 +4,9 @@
  * it is shifted along +x by tan α·z (α > 0 leans toward +x as it rises toward the cover); a
  * slanted ridge is sliced, each slice taking the position at its mid-height.
  */
-import { profileFromSurface } from './fromSurface.ts';
+import { profileFromShape, profileFromSurface } from './fromSurface.ts';
 import { polylineSurface } from './polyline.ts';
 import { segmentsFromRegions, wrapInterval, type Interval } from './segments.ts';
-import { sliceShape } from './slicing.ts';
 import type { ProfileResult, ProfileShape, SliceStrategy } from './types.ts';
 import { angleIn, common, duty, fraction, num, positiveLength, record } from './validate.ts';
 
@@ -72,16 +71,5 @@ export function lamellar(p: LamellarParams): ProfileResult {
       return segmentsFromRegions([{ set, material: c.ridgeMaterial }], c.grooveMaterial);
     },
   };
-  const s = sliceShape(shape, c.slices, c.strategy);
-  return {
-    layers: s.layers,
-    slices: s.layers.length,
-    depthUm: d,
-    notes: [`slanted ridge: top shifted by tan(${num(slant)}°)·d = ${num(tan * d)} µm from the base`, ...s.notes],
-    periodUm: L,
-    ridgeMaterial: c.ridgeMaterial,
-    grooveMaterial: c.grooveMaterial,
-    shape,
-    surfaces: [],
-  };
+  return profileFromShape(shape, c, [`slanted ridge: top shifted by tan(${num(slant)}°)·d = ${num(tan * d)} µm from the base`], []);
 }

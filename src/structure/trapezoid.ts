@@ -6,10 +6,9 @@
  * bottom width leaves [0, Λ] would intersect itself or its neighbour and is rejected.
  * Undercut ridges are sliced correctly but, having no single-valued surface, cannot be coated.
  */
-import { profileFromSurface } from './fromSurface.ts';
+import { profileFromShape, profileFromSurface } from './fromSurface.ts';
 import { polylineSurface } from './polyline.ts';
 import { segmentsFromRegions, wrapInterval, type Interval } from './segments.ts';
-import { sliceShape } from './slicing.ts';
 import type { ProfileResult, ProfileShape, SlicedProfileParams } from './types.ts';
 import { angleIn, common, duty, fail, fraction, num, positiveLength, record } from './validate.ts';
 
@@ -95,18 +94,7 @@ export function trapezoid(p: TrapezoidParams): ProfileResult {
       return segmentsFromRegions([{ set, material: c.ridgeMaterial }], c.grooveMaterial);
     },
   };
-  const s = sliceShape(shape, c.slices, c.strategy);
-  return {
-    layers: s.layers,
-    slices: s.layers.length,
-    depthUm: d,
-    notes: [...notes, 'undercut sidewalls (top wider than base): no single-valued surface, so this profile cannot take a conformal coating', ...s.notes],
-    periodUm: L,
-    ridgeMaterial: c.ridgeMaterial,
-    grooveMaterial: c.grooveMaterial,
-    shape,
-    surfaces: [],
-  };
+  return profileFromShape(shape, c, [...notes, 'undercut sidewalls (top wider than base): no single-valued surface, so this profile cannot take a conformal coating'], []);
 }
 
 function width(field: string, v: unknown, L: number): number {
