@@ -46,6 +46,8 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
   const lus: LUFactors[] = new Array(L + 1);
   // reflection matrices at the bottom of each layer, kept only for interior fields
   const rBottom: CMatrix[] = new Array(L + 1);
+  // exp(i·q·k0·d) of each layer 1…L
+  const phases: Float64Array[] = new Array(L + 1);
   let delta0: CMatrix | null = null;
   // R' at the top of the medium below the current interface; null means zero (substrate)
   let rTop: CMatrix | null = null;
@@ -110,8 +112,9 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
     const r: CMatrix = rTop ?? cmatrix(n, n);
     transposeInto(r, tmp2);
     if (keepInterior) rBottom[j] = { rows: n, cols: n, data: r.data.slice() };
-    const x = phase(upper.q, thickness[j]!);
-    scaleBoth(r, x);
+    // propagation factors of layer j, used again when the amplitudes are carried down
+    phases[j] = phase(upper.q, thickness[j]!);
+    scaleBoth(r, phases[j]!);
     rTop = r;
   }
   // carry the incident amplitudes down: c+ (top of medium j+1) = S_j⁻¹ · X_j · c+ (top of j)
@@ -121,8 +124,7 @@ export function solveStack(media: ReadonlyArray<Modes>, thickness: ReadonlyArray
   const interior: Array<{ forwardTop: CMatrix; backwardBottom: CMatrix }> = [];
   for (let j = 1; j <= L; j++) {
     const forwardTop = keepInterior ? { rows: n, cols: c, data: cur.data.slice() } : null;
-    const x = phase(media[j]!.q, thickness[j]!);
-    zdiagLeft(cur, x, cur);
+    zdiagLeft(cur, phases[j]!, cur);
     if (forwardTop) interior.push({ forwardTop, backwardBottom: zgemm(cmatrix(n, c), rBottom[j]!, cur) });
     cur = zgetrsT(lus[j]!, cur, cur) as CMatrix;
   }
