@@ -1,7 +1,8 @@
 /**
  * The fill a polyline surface reports without building intervals equals the total width of the
  * intervals it reports above the same height, and slicing with it keeps the slicing rule
- * (sawtooth: a constant fill rate, so the adaptive rule gives equal slices — common practice).
+ * (sawtooth: under straight facets the ridge width is linear in height — similar triangles — so
+ * the fill changes at a constant rate and the adaptive rule gives equal slices).
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
@@ -25,7 +26,7 @@ describe('polyline fill above a height', () => {
     );
   });
 
-  it('slices a sawtooth adaptively into equal heights with ridge fills (k + ½)/S (constant fill rate: common practice)', () => {
+  it('slices a sawtooth adaptively into equal heights with ridge fills (k + ½)/S (straight facets: fill linear in height, by similar triangles)', () => {
     const S = 10;
     const r = sawtooth({ periodUm: 1, blazeDeg: 10, ridgeMaterial: 'R', grooveMaterial: 'G', slices: S, strategy: 'adaptive' });
     expect(r.slices).toBe(S);
